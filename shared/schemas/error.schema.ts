@@ -1,0 +1,36 @@
+/** The one error body every API route answers with. */
+import { z } from 'zod';
+
+export const ERROR_CODES = [
+  'VALIDATION_FAILED',
+  'UNAUTHENTICATED',
+  'FORBIDDEN',
+  'NOT_FOUND',
+  'CONFLICT',
+  'EMAIL_TAKEN',
+  'BAD_CREDENTIALS',
+  'RATE_LIMITED',
+  'BAD_ORIGIN',
+  'PAYLOAD_TOO_LARGE',
+  'BAD_JSON',
+  'INTERNAL',
+] as const;
+export const ErrorCodeSchema = z.enum(ERROR_CODES);
+export type ErrorCode = z.infer<typeof ErrorCodeSchema>;
+
+export const ErrorBodySchema = z.object({
+  error: z.object({
+    code: ErrorCodeSchema,
+    message: z.string(),
+    /** Field-level messages keyed by dotted path (e.g. "password", "ksu.lines.0.number"). */
+    details: z.record(z.string(), z.array(z.string())).optional(),
+  }),
+});
+export type ErrorBody = z.infer<typeof ErrorBodySchema>;
+
+export const HealthSchema = z.object({
+  status: z.enum(['ok', 'degraded']),
+  version: z.string(),
+  database: z.enum(['ok', 'unavailable']),
+});
+export type Health = z.infer<typeof HealthSchema>;

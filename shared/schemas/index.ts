@@ -1,0 +1,3 @@
+export * from './auth.schema';
+export * from './error.schema';
+export * from './plans.schema';
