@@ -1,5 +1,5 @@
 import { fileURLToPath, URL } from 'node:url';
-import { defineConfig } from 'vite';
+import { defineConfig } from 'vitest/config';
 import vue from '@vitejs/plugin-vue';
 
 const apiPort = Number(process.env.PORT ?? 3000);
@@ -21,7 +21,7 @@ export default defineConfig({
     chunkSizeWarningLimit: 900,
     rolldownOptions: {
       output: {
-        advancedChunks: {
+        codeSplitting: {
           groups: [
             { name: 'vendor-flow', test: /node_modules[\\/]@vue-flow/ },
             { name: 'vendor-ui', test: /node_modules[\\/](naive-ui|vueuc|vooks|seemly|css-render|@css-render|evtd|treemate|vdirs|date-fns|lodash-es)/ },
@@ -35,7 +35,12 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'engine', environment: 'node', include: ['tests/engine/**/*.test.ts'] },
+        test: {
+          name: 'engine',
+          environment: 'node',
+          include: ['tests/engine/**/*.test.ts'],
+          setupFiles: ['tests/support/matchers.ts'],
+        },
       },
       {
         extends: true,

@@ -98,6 +98,8 @@ export const KsuLeadSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('line-a'), line: z.number().int().min(1) }),
   /** Line lamp pair: tip = L, ring = LG. */
   z.object({ kind: z.literal('line-lamp'), line: z.number().int().min(1) }),
+  /** Line A-lead and lamp lead on one pair: tip = A, ring = L (our own scheme for lines 6–9 of the ten-key set). */
+  z.object({ kind: z.literal('line-a-lamp'), line: z.number().int().min(1) }),
   /** Intercom buzzer output for one station. */
   z.object({ kind: z.literal('buzzer'), station: PartIdSchema }),
 ]);
@@ -147,22 +149,21 @@ export const RequiredFunctionsSchema = z.object({
 });
 export type RequiredFunctions = z.infer<typeof RequiredFunctionsSchema>;
 
-export const PlanSchema = z
-  .object({
-    version: z.literal(PLAN_VERSION),
-    name: NameSchema,
-    description: z.string().max(2000).default(''),
-    ksu: KsuSchema,
-    sets: z.array(KeySetSchema).max(200).default([]),
-    addOns: z.array(AddOnSchema).max(200).default([]),
-    adapters: z.array(AdapterSchema).max(200).default([]),
-    cables: z.array(CableSchema).max(600).default([]),
-    required: RequiredFunctionsSchema.default({
-      allLinesOnEverySet: true,
-      intercomPerStation: true,
-      handsFreeSets: [],
-    }),
-  });
+export const PlanSchema = z.object({
+  version: z.literal(PLAN_VERSION),
+  name: NameSchema,
+  description: z.string().max(2000).default(''),
+  ksu: KsuSchema,
+  sets: z.array(KeySetSchema).max(200).default([]),
+  addOns: z.array(AddOnSchema).max(200).default([]),
+  adapters: z.array(AdapterSchema).max(200).default([]),
+  cables: z.array(CableSchema).max(600).default([]),
+  required: RequiredFunctionsSchema.default({
+    allLinesOnEverySet: true,
+    intercomPerStation: true,
+    handsFreeSets: [],
+  }),
+});
 
 export type Plan = z.infer<typeof PlanSchema>;
 export type PlanInput = z.input<typeof PlanSchema>;

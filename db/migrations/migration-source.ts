@@ -1,0 +1,16 @@
+/**
+ * Lists the migrations by import instead of scanning the folder, so they load the same way under
+ * tsx, vitest and a bundled build. Add each new migration here, in order.
+ */
+import type { Knex } from 'knex';
+import * as initial from './20261202_0001_initial';
+
+const MIGRATIONS: Record<string, Knex.Migration> = {
+  '20261202_0001_initial': initial,
+};
+
+export const migrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(MIGRATIONS),
+  getMigrationName: (name) => name,
+  getMigration: async (name) => MIGRATIONS[name],
+};

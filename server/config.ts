@@ -1,0 +1,95 @@
+/**
+ * Server configuration: read from the environment once at boot, checked with zod.
+ * A bad value stops the server with a message naming the variable, never a half-working start.
+ */
+import { z } from 'zod';
+
+const Bool = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'], { error: 'Use true or false' })
+  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+
+const Port = z.coerce
+  .number({ error: 'Use a port number' })
+  .int('Use a whole port number')
+  .min(0, 'Use a port from 0 to 65535')
+  .max(65535, 'Use a port from 0 to 65535');
+
+const EnvSchema = z.object({
+  PORT: Port.default(3000),
+  // Loopback by default: a fresh clone is not reachable from the network until someone chooses so.
+  HOST: z.string().trim().min(1, 'HOST may not be empty').default('127.0.0.1'),
+  DATABASE_FILE: z.string().trim().min(1, 'DATABASE_FILE may not be empty').default('data/leadbench.sqlite'),
+  SESSION_SECURE: Bool.default(false),
+  SESSION_DAYS: z.coerce
+    .number({ error: 'Use a number of days' })
+    .int('Use a whole number of days')
+    .min(1, 'Use 1 to 365 days')
+    .max(365, 'Use 1 to 365 days')
+    .default(30),
+  PUBLIC_ORIGIN: z
+    .url({ protocol: /^https?$/, error: 'Use an origin like https://bench.example.org' })
+    .optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  MAIL_HOST: z.string().trim().min(1).optional(),
+  MAIL_PORT: Port.optional(),
+  MAIL_FROM: z.string().trim().min(3).default('Leadbench <bench@leadbench.test>'),
+  SEED_DEMO: Bool.default(true),
+  /** Proxies in front of the app whose X-Forwarded-For may be believed: false, true, or a hop count. */
+  TRUST_PROXY: z
+    .string()
+    .regex(/^(true|false|\d{1,2})$/, { error: 'Use true, false or a number of proxy hops' })
+    .default('false')
+    .transform((v) => (v === 'true' ? true : v === 'false' ? false : Number(v))),
+  /** Sign-in and sign-up attempts allowed per client address in one 15-minute window. */
+  RATE_LIMIT_MAX: z.coerce
+    .number({ error: 'Use a number of attempts' })
+    .int()
+    .min(1, 'Allow at least 1 attempt')
+    .default(20),
+});
+
+export interface Config {
+  port: number;
+  host: string;
+  databaseFile: string;
+  sessionSecure: boolean;
+  sessionDays: number;
+  /** Scheme, host and port browsers use to reach the app; state-changing requests must come from it. */
+  publicOrigin: string;
+  logLevel: z.infer<typeof EnvSchema>['LOG_LEVEL'];
+  /** When null the server starts its own fake SMTP server and keeps the messages in memory. */
+  mail: { host: string; port: number } | null;
+  mailFrom: string;
+  seedDemo: boolean;
+  authRateLimit: { windowMs: number; limit: number };
+  /** Express "trust proxy": client addresses (for rate limits and logs) come from X-Forwarded-For. */
+  trustProxy: boolean | number;
+}
+
+export class ConfigError extends Error {}
+
+export function loadConfig(env: Record<string, string | undefined> = process.env): Config {
+  // Treat empty strings like unset variables so `PORT= npm start` behaves as expected.
+  const present = Object.fromEntries(Object.entries(env).filter(([, v]) => v !== undefined && v !== ''));
+  const parsed = EnvSchema.safeParse(present);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.') || '(env)'}: ${i.message}`);
+    throw new ConfigError(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  const origin = e.PUBLIC_ORIGIN ? new URL(e.PUBLIC_ORIGIN).origin : `http://localhost:${e.PORT}`;
+  return {
+    port: e.PORT,
+    host: e.HOST,
+    databaseFile: e.DATABASE_FILE,
+    sessionSecure: e.SESSION_SECURE,
+    sessionDays: e.SESSION_DAYS,
+    publicOrigin: origin,
+    logLevel: e.LOG_LEVEL,
+    mail: e.MAIL_HOST ? { host: e.MAIL_HOST, port: e.MAIL_PORT ?? 25 } : null,
+    mailFrom: e.MAIL_FROM,
+    seedDemo: e.SEED_DEMO,
+    authRateLimit: { windowMs: 15 * 60_000, limit: e.RATE_LIMIT_MAX },
+    trustProxy: e.TRUST_PROXY,
+  };
+}

@@ -1,0 +1,84 @@
+/**
+ * The one place errors become responses. Every failure leaves as
+ * `{ error: { code, message, details? } }` (ErrorBodySchema); unexpected ones are logged and answered
+ * with a generic 500 so no internals reach the client.
+ */
+import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
+import { ZodError } from 'zod';
+import type { ErrorBody, ErrorCode } from '../../shared/schemas/error.schema';
+import { HttpError } from './http-error';
+import { issuesByPath } from './validate';
+
+export function sendError(
+  res: Response,
+  status: number,
+  code: ErrorCode,
+  message: string,
+  details?: Record<string, string[]>,
+): void {
+  const body: ErrorBody = { error: { code, message, ...(details ? { details } : {}) } };
+  res.status(status).json(body);
+}
+
+/** body-parser marks its errors with a `type`; map the ones a client can cause. */
+interface BodyParserError {
+  type: string;
+  status?: number;
+}
+const isBodyParserError = (err: unknown): err is BodyParserError =>
+  typeof err === 'object' && err !== null && typeof (err as { type?: unknown }).type === 'string';
+
+const CODE_BY_STATUS: Record<number, ErrorCode> = {
+  401: 'UNAUTHENTICATED',
+  403: 'FORBIDDEN',
+  404: 'NOT_FOUND',
+  409: 'CONFLICT',
+  413: 'PAYLOAD_TOO_LARGE',
+  429: 'RATE_LIMITED',
+};
+
+/** The 4xx status an error carries (http-errors style `status`/`statusCode`), or null. */
+function clientErrorStatus(err: unknown): number | null {
+  if (typeof err !== 'object' || err === null) return null;
+  const { status, statusCode } = err as { status?: unknown; statusCode?: unknown };
+  const value = typeof status === 'number' ? status : statusCode;
+  return typeof value === 'number' && value >= 400 && value < 500 ? value : null;
+}
+
+export const apiNotFound: RequestHandler = (req, res) => {
+  sendError(res, 404, 'NOT_FOUND', `There is no API route ${req.method} ${req.path}.`);
+};
+
+export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
+  if (res.headersSent) return next(err);
+  if (err instanceof HttpError) return sendError(res, err.status, err.code, err.message, err.details);
+  if (err instanceof ZodError) {
+    return sendError(res, 400, 'VALIDATION_FAILED', 'Some fields need attention.', issuesByPath(err.issues));
+  }
+  if (isBodyParserError(err)) {
+    switch (err.type) {
+      case 'entity.parse.failed':
+        return sendError(res, 400, 'BAD_JSON', 'The request body is not valid JSON.');
+      case 'entity.too.large':
+        return sendError(res, 413, 'PAYLOAD_TOO_LARGE', 'The request body is too large.');
+      case 'encoding.unsupported':
+      case 'charset.unsupported':
+        return sendError(res, 400, 'BAD_JSON', 'Send the body as UTF-8 JSON.');
+      case 'request.aborted':
+      case 'request.size.invalid':
+        return sendError(res, 400, 'BAD_JSON', 'The request body arrived incomplete.');
+    }
+  }
+  const status = clientErrorStatus(err);
+  if (status !== null) {
+    // Other client errors raised inside Express or its middleware, e.g. a malformed %-escape in the path.
+    return sendError(
+      res,
+      status,
+      CODE_BY_STATUS[status] ?? 'VALIDATION_FAILED',
+      'The request could not be understood.',
+    );
+  }
+  req.log?.error({ err }, 'unhandled error');
+  sendError(res, 500, 'INTERNAL', 'Something went wrong on the server. Please try again.');
+};

@@ -1,0 +1,16 @@
+/** Limits repeated sign-in and sign-up attempts from one address; answers in our error shape. */
+import { rateLimit } from 'express-rate-limit';
+import type { Config } from '../config';
+import { sendError } from './error-handler';
+
+export function authRateLimit(options: Config['authRateLimit']) {
+  return rateLimit({
+    windowMs: options.windowMs,
+    limit: options.limit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      sendError(res, 429, 'RATE_LIMITED', 'Too many attempts. Wait a few minutes and try again.');
+    },
+  });
+}

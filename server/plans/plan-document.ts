@@ -1,0 +1,24 @@
+/**
+ * Checks a plan document before it is stored with the engine's own `validatePlan` (schema plus
+ * cross-references: templates, parts, ports, stations, lines). Problems come back as `details` keyed by
+ * dotted path under "document", like every other validation answer (e.g. "document.sets.1.template").
+ */
+import { validatePlan, type Plan } from '../../shared/engine/index';
+import { HttpError } from '../http/http-error';
+
+/** The engine writes "sets[1].template"; the API's details use "sets.1.template". */
+const dotted = (enginePath: string): string =>
+  ['document', enginePath.replace(/\[(\d+)\]/g, '.$1')].filter(Boolean).join('.');
+
+export function checkPlanDocument(input: unknown): Plan {
+  const result = validatePlan(input);
+  if (result.ok) return result.plan;
+  const details: Record<string, string[]> = {};
+  for (const issue of result.issues) (details[dotted(issue.path)] ??= []).push(issue.message);
+  throw new HttpError(
+    400,
+    'VALIDATION_FAILED',
+    'The plan has problems that must be fixed before saving.',
+    details,
+  );
+}

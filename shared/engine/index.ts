@@ -1,0 +1,55 @@
+/**
+ * The engine's public API (see api-contract.md). UI, server and CLI import from here only.
+ * Layers: document (plan, validation), model (templates → netlist → nets), observations (evaluate), search (sweep, cure).
+ */
+export * from './document/plan.schema';
+export {
+  validatePlan,
+  crossReferenceIssues,
+  formatPath,
+  type PlanIssue,
+  type ValidatePlanResult,
+} from './document/validate-plan';
+export { canConnect, type CanConnectResult } from './document/can-connect';
+export {
+  pairColour,
+  pinOf,
+  pinToPair,
+  TIP_COLOURS,
+  RING_COLOURS,
+  PAIR_COUNT,
+  PIN_COUNT,
+  type PairColour,
+} from './document/cable-code';
+export { leadTable, type LeadRow } from './document/lead-table';
+
+export {
+  TEMPLATES,
+  getTemplate,
+  ksuPortName,
+  standardLinePairs,
+  tenKeyExtraPairs,
+  BUZZER_PAIR,
+  SPARE_PAIR,
+  HANDS_FREE_PAIRS,
+} from './templates/part-templates';
+export type * from './templates/template.types';
+
+export { standardCrossConnect, effectiveCrossConnect } from './model/cross-connect';
+export { getNetlist, applyLeadChanges, type Netlist } from './model/netlist';
+export { createMech, fillMech, evaluateNets, type Mech } from './model/nets';
+
+export * from './sim/state.schema';
+export { initialState, normaliseState, applyAction, COMPLETE_NUMBER_LENGTH } from './sim/actions';
+
+export {
+  evaluate,
+  evaluateWithNets,
+  computeNets,
+  type EvaluateOptions,
+  type StateNets,
+} from './observe/evaluate';
+export { CADENCES, TONES, strongestCadence } from './observe/signals';
+export * from './observe/evaluation.types';
+
+export * from './search/index';

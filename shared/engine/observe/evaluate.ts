@@ -1,0 +1,431 @@
+/** Observations and findings for one plan in one state: (plan, state) → nets → observations → findings. */
+import { pairColour } from '../document/cable-code';
+import type { Plan } from '../document/plan.schema';
+import { getNetlist, type Netlist } from '../model/netlist';
+import { createMech, fillMech, type Mech } from '../model/nets';
+import type { FarPhase, LineState, SimState } from '../sim/state.schema';
+import type {
+  Cadence,
+  Evaluation,
+  Finding,
+  LineObservation,
+  LineStatus,
+  SetObservation,
+  StationObservation,
+  ToneName,
+} from './evaluation.types';
+import { computeFacts, isActive, selectedLines, type NetFacts } from './facts';
+import {
+  crossingSentence,
+  findPath,
+  firstCrossing,
+  firstUnitLeadSentence,
+  toHops,
+  unitsAlong,
+  type TerminalPath,
+} from './paths';
+import { strongestCadence } from './signals';
+import { staticFindings } from './static-findings';
+
+export interface EvaluateOptions {
+  /** Trace conductor paths and write path-based sentences (default true). Sweeps turn it off for speed. */
+  paths?: boolean;
+}
+
+const TONE_OF_PHASE: Partial<Record<FarPhase, ToneName>> = {
+  'dial-tone': 'dial',
+  ringback: 'ringback',
+  busy: 'busy',
+  reorder: 'reorder',
+  talking: 'voice',
+  answered: 'voice',
+};
+
+const TALKING: ReadonlySet<FarPhase> = new Set(['talking', 'answered']);
+
+interface Context {
+  nl: Netlist;
+  state: SimState;
+  mech: Mech;
+  facts: NetFacts;
+  lineStates: (LineState | undefined)[];
+  paths: boolean;
+}
+
+function lineStatus(c: Context, i: number): LineStatus {
+  const ls = c.lineStates[i];
+  if (c.facts.aClosed[i]) return 'in-use';
+  if (ls?.circuit === 'held') return 'held';
+  if (ls?.ringing) return 'ringing';
+  return 'idle';
+}
+
+function lineCadence(status: LineStatus): Cadence {
+  return status === 'in-use'
+    ? 'steady'
+    : status === 'held'
+      ? 'wink'
+      : status === 'ringing'
+        ? 'flash'
+        : 'dark';
+}
+
+const lineList = (ns: number[]) =>
+  ns.length <= 1 ? String(ns[0]) : `${ns.slice(0, -1).join(', ')} and ${ns[ns.length - 1]}`;
+
+/** The nets of one mechanical state (sets' hookswitch, keys, hands-free switch): reusable across line states. */
+export interface StateNets {
+  readonly mech: Mech;
+  readonly facts: NetFacts;
+}
+
+export function computeNets(plan: Plan, state: SimState): StateNets {
+  const nl = getNetlist(plan);
+  const mech = fillMech(nl, state, createMech(nl));
+  const facts = computeFacts(nl, mech);
+  return { mech, facts: { ...facts, roots: facts.roots.slice() } };
+}
+
+export function evaluate(plan: Plan, state: SimState, options: EvaluateOptions = {}): Evaluation {
+  return evaluateWithNets(plan, state, computeNets(plan, state), options);
+}
+
+/** Same as evaluate, with nets from computeNets for a state with the same set states. */
+export function evaluateWithNets(
+  plan: Plan,
+  state: SimState,
+  nets: StateNets,
+  options: EvaluateOptions = {},
+): Evaluation {
+  const nl = getNetlist(plan);
+  const { mech, facts } = nets;
+  const layout = layoutOf(nl);
+  const nLines = nl.lines.length;
+  const lineStates: (LineState | undefined)[] = new Array(nLines);
+  for (let i = 0; i < nLines; i++) {
+    const n = nl.lines[i].number;
+    let found: LineState | undefined;
+    for (const ls of state.lines) {
+      if (ls.line === n) {
+        found = ls;
+        break;
+      }
+    }
+    lineStates[i] = found;
+  }
+  const c: Context = { nl, state, mech, facts, lineStates, paths: options.paths !== false };
+
+  const statuses: LineStatus[] = new Array(nLines);
+  const cadences: Cadence[] = new Array(nLines);
+  const lines: LineObservation[] = new Array(nLines);
+  for (let i = 0; i < nLines; i++) {
+    statuses[i] = lineStatus(c, i);
+    cadences[i] = lineCadence(statuses[i]);
+    // Lines joined: same tip net or same ring net.
+    const joinedWith: number[] = [];
+    for (let j = 0; j < nLines; j++) {
+      if (i !== j && (facts.rootT[i] === facts.rootT[j] || facts.rootR[i] === facts.rootR[j])) {
+        joinedWith.push(nl.lines[j].number);
+      }
+    }
+    const setsOn: string[] = [];
+    for (const s of facts.setsOn[i]) setsOn.push(nl.sets[s].id);
+    lines[i] = {
+      line: nl.lines[i].number,
+      status: statuses[i],
+      aClosed: facts.aClosed[i],
+      loopClosed: facts.networkLoop[i] || statuses[i] === 'held',
+      setsOn,
+      lamp: cadences[i],
+      far: lineStates[i]?.far.phase ?? 'idle',
+      joinedWith,
+    };
+  }
+
+  const roots = facts.roots;
+  const d = nl.dense;
+  const calling = state.intercom.calling;
+  const driven = calling ? nl.stations.find((s) => s.id === calling) : undefined;
+  const drivenT = driven ? roots[d[driven.t]] : -1;
+  const drivenR = driven ? roots[d[driven.r]] : -1;
+  const nSets = nl.sets.length;
+  const ringerOn: boolean[] = new Array(nSets).fill(false);
+  const buzzerOn: boolean[] = new Array(nSets).fill(false);
+  const lampCadence: Cadence[] = new Array(nl.elements.length);
+  const lampLines: number[][] = new Array(nl.elements.length);
+  for (let k = 0; k < nl.elements.length; k++) {
+    const e = nl.elements[k];
+    if (e.owner < 0) continue;
+    const ra = roots[d[e.a]];
+    const rb = roots[d[e.b]];
+    if (e.kind === 'buzzer') {
+      if (driven && ((ra === drivenT && rb === drivenR) || (ra === drivenR && rb === drivenT)))
+        buzzerOn[e.owner] = true;
+    } else if (e.kind === 'ringer') {
+      for (let i = 0; i < nLines; i++) {
+        const x = facts.rootT[i];
+        const y = facts.rootR[i];
+        if (lineStates[i]?.ringing && ((ra === x && rb === y) || (ra === y && rb === x)))
+          ringerOn[e.owner] = true;
+      }
+    } else if (e.kind === 'lamp') {
+      let lamp: Cadence = 'dark';
+      const lit: number[] = [];
+      const g = facts.gnd;
+      for (let i = 0; i < nLines; i++) {
+        const x = facts.rootL[i];
+        if ((ra === x && rb === g) || (ra === g && rb === x)) {
+          lit.push(nl.lines[i].number);
+          lamp = strongestCadence(lamp, cadences[i]);
+        }
+      }
+      lampCadence[k] = lamp;
+      lampLines[k] = lit;
+    }
+  }
+
+  const sets: SetObservation[] = new Array(nSets);
+  for (let si = 0; si < nSets; si++) {
+    const s = nl.sets[si];
+    const hears: number[] = [];
+    const tones: { tone: ToneName; line: number }[] = [];
+    for (const i of facts.hears[si]) {
+      const number = nl.lines[i].number;
+      hears.push(number);
+      const tone = TONE_OF_PHASE[lineStates[i]?.far.phase ?? 'idle'];
+      if (tone) tones.push({ tone, line: number });
+    }
+    const keySpecs = s.template?.keys ?? [];
+    const keys: SetObservation['keys'] = new Array(keySpecs.length);
+    for (let k = 0; k < keySpecs.length; k++) {
+      const spec = keySpecs[k];
+      const el = layout.lampOf[si][spec.index] ?? -1;
+      keys[k] = {
+        index: spec.index,
+        label: spec.label,
+        lamp: el >= 0 ? lampCadence[el] : 'dark',
+        lines: el >= 0 ? lampLines[el] : [],
+      };
+    }
+    sets[si] = {
+      set: s.id,
+      offHook: mech.offHook[si] === 1,
+      pressedKey: mech.pressedKey[si] || null,
+      handsFreeOn: mech.handsFreeOn[si] === 1,
+      keys,
+      hears,
+      tones,
+      buzzer: buzzerOn[si],
+      ringer: ringerOn[si],
+    };
+  }
+
+  const stations: StationObservation[] = nl.stations.map((st, i) => {
+    const buzzing: string[] = [];
+    if (st.id === calling) for (let si = 0; si < nSets; si++) if (buzzerOn[si]) buzzing.push(nl.sets[si].id);
+    return {
+      station: st.id,
+      code: st.code,
+      calling: st.id === calling,
+      buzzing,
+      assigned: layout.assigned[i].slice(),
+    };
+  });
+
+  const dynamic = dynamicFindings(c, lines, buzzerOn);
+  const fixed = staticFindings(nl, c.paths);
+  const findings = fixed.length ? dynamic.concat(fixed) : dynamic;
+  return { lines, sets, stations, findings };
+}
+
+interface Layout {
+  /** Per set: element index of the lamp of each key index. */
+  lampOf: number[][];
+  /** Per station: ids of the sets assigned to it. */
+  assigned: string[][];
+}
+
+const layouts = new WeakMap<Netlist, Layout>();
+
+function layoutOf(nl: Netlist): Layout {
+  let layout = layouts.get(nl);
+  if (!layout) {
+    const lampOf: number[][] = nl.sets.map(() => []);
+    nl.elements.forEach((e, k) => {
+      if (e.kind === 'lamp' && e.owner >= 0 && e.key !== undefined) lampOf[e.owner][e.key] = k;
+    });
+    const assigned = nl.stations.map((st) => nl.sets.filter((s) => s.station === st.id).map((s) => s.id));
+    layout = { lampOf, assigned };
+    layouts.set(nl, layout);
+  }
+  return layout;
+}
+
+function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean[]): Finding[] {
+  const { nl, mech, facts } = c;
+  const out: Finding[] = [];
+  const path = (from: number, to: number): TerminalPath | null =>
+    c.paths ? findPath(nl, from, to, mech) : null;
+  const nSets = nl.sets.length;
+  const selected: number[][] = new Array(nSets);
+  const active: boolean[] = new Array(nSets);
+  for (let si = 0; si < nSets; si++) {
+    selected[si] = selectedLines(nl, si, mech);
+    active[si] = isActive(mech, si);
+  }
+
+  // LINES_JOINED: one finding per group of joined lines.
+  const seen = new Set<number>();
+  lines.forEach((obs, i) => {
+    if (!obs.joinedWith.length || seen.has(obs.line)) return;
+    const group = [obs.line, ...obs.joinedWith].sort((a, b) => a - b);
+    group.forEach((n) => seen.add(n));
+    const involved = nl.sets.filter(
+      (s) => selected[s.index].some((n) => group.includes(n)) && mech.pressedKey[s.index] > 0,
+    );
+    const j = nl.lines.findIndex((l) => l.number === group.find((n) => n !== obs.line));
+    const sameTip = facts.rootT[i] === facts.rootT[j];
+    const p = path(sameTip ? nl.lines[i].t : nl.lines[i].r, sameTip ? nl.lines[j].t : nl.lines[j].r);
+    let how = involved.length ? ` through ${involved.map((s) => s.name).join(' and ')}` : '';
+    if (p) {
+      const crossing = firstCrossing(nl, p);
+      how = crossing ? `: ${crossingSentence(crossing)}` : ` along ${unitsAlong(nl, p).join(', ')}`;
+    }
+    out.push({
+      code: 'LINES_JOINED',
+      severity: 'fault',
+      sets: involved.map((s) => s.id),
+      lines: group,
+      stations: [],
+      message: `Lines ${lineList(group)} are joined${how}.`,
+      path: p ? toHops(nl, p) : [],
+    });
+  });
+
+  for (const s of nl.sets) {
+    const heard = facts.hears[s.index];
+    if (!heard.length) continue;
+    const heardNumbers = heard.map((i) => nl.lines[i].number);
+    const networkTip = networkTerminal(c, s.index);
+    if (heard.length > 1) {
+      const stray = heard.find((i) => !selected[s.index].includes(nl.lines[i].number)) ?? heard[1];
+      const p = networkTip >= 0 ? path(nl.lines[stray].t, networkTip) : null;
+      out.push({
+        code: 'SET_HEARS_SEVERAL_LINES',
+        severity: 'fault',
+        sets: [s.id],
+        lines: heardNumbers,
+        stations: [],
+        message: `${s.name} hears lines ${lineList(heardNumbers)} at once${p ? describeVia(c, p) : ''}.`,
+        path: p ? toHops(nl, p) : [],
+      });
+    }
+    for (const i of heard) {
+      const line = nl.lines[i].number;
+      if (selected[s.index].includes(line)) continue;
+      const p = networkTip >= 0 ? path(nl.lines[i].t, networkTip) : null;
+      const keyText =
+        mech.pressedKey[s.index] > 0
+          ? `with line key ${selected[s.index].join(', ')} down`
+          : 'with no line key down';
+      out.push({
+        code: 'SET_HEARS_UNSELECTED_LINE',
+        severity: 'fault',
+        sets: [s.id],
+        lines: [line],
+        stations: [],
+        message: `${s.name} hears line ${line} ${keyText}${p ? describeVia(c, p) : ''}.`,
+        path: p ? toHops(nl, p) : [],
+      });
+      const others = nl.sets.filter(
+        (o) =>
+          o !== s && active[o.index] && selected[o.index].includes(line) && facts.hears[o.index].includes(i),
+      );
+      if (others.length) {
+        out.push({
+          code: 'BREAK_IN',
+          severity: 'fault',
+          sets: [s.id, ...others.map((o) => o.id)],
+          lines: [line],
+          stations: [],
+          message: `${s.name} breaks into the call on line ${line} and hears ${others.map((o) => o.name).join(' and ')}${TALKING.has(lines[i].far) ? ' and the far party' : ''}${p ? describeVia(c, p) : ''}.`,
+          path: p ? toHops(nl, p) : [],
+        });
+      }
+    }
+  }
+
+  // LINE_LIT_UNATTENDED
+  for (let i = 0; i < lines.length; i++) {
+    const obs = lines[i];
+    const ls = c.lineStates[i];
+    const heldAside = obs.status === 'held' && !!ls?.heldWithoutSelection;
+    if (!obs.aClosed && !heldAside) continue;
+    let attended = false;
+    for (let si = 0; si < nSets && !attended; si++) attended = active[si] && selected[si].includes(obs.line);
+    const litByA = obs.aClosed && !attended;
+    if (!litByA && !heldAside) continue;
+    const latched = nl.sets.filter(
+      (s) => mech.pressedKey[s.index] > 0 && selected[s.index].includes(obs.line),
+    );
+    const p = litByA ? path(nl.lines[i].a, nl.gnd) : null;
+    const why = litByA
+      ? `its A-lead is grounded though no set in use has selected it${p ? describeVia(c, p) : ''}`
+      : 'it went on hold though the set that pressed hold had not selected it';
+    out.push({
+      code: 'LINE_LIT_UNATTENDED',
+      severity: 'fault',
+      sets: latched.map((s) => s.id),
+      lines: [obs.line],
+      stations: [],
+      message: `Line ${obs.line} is lit with nobody on it: ${why}.`,
+      path: p ? toHops(nl, p) : [],
+    });
+  }
+
+  // INTERCOM_SOUNDS_SEVERAL
+  const calling = c.state.intercom.calling;
+  const station = calling ? nl.stations.find((s) => s.id === calling) : undefined;
+  if (station) {
+    const sounding = nl.sets.filter((s) => buzzerOn[s.index]);
+    const extra = sounding.filter((s) => s.station !== station.id);
+    if (extra.length) {
+      const buzzer = nl.elements.find((e) => e.kind === 'buzzer' && e.owner === extra[0].index);
+      const p = buzzer ? (path(station.t, buzzer.a) ?? path(station.t, buzzer.b)) : null;
+      out.push({
+        code: 'INTERCOM_SOUNDS_SEVERAL',
+        severity: 'fault',
+        sets: sounding.map((s) => s.id),
+        lines: [],
+        stations: [station.id],
+        message: `An intercom call to station ${station.code} buzzes ${sounding.map((s) => s.name).join(' and ')}${p ? describeBuzzerPair(c, p) : ''}.`,
+        path: p ? toHops(nl, p) : [],
+      });
+    }
+  }
+  return out;
+}
+
+/** A terminal of the set's (or its add-on's) speech network that is on a line, for path tracing. */
+function networkTerminal(c: Context, setIndex: number): number {
+  for (const e of c.nl.elements) {
+    if (e.kind !== 'network' || e.owner !== setIndex) continue;
+    const ra = c.facts.roots[c.nl.dense[e.a]];
+    if (c.facts.rootT.includes(ra)) return e.a;
+    const rb = c.facts.roots[c.nl.dense[e.b]];
+    if (c.facts.rootT.includes(rb)) return e.b;
+  }
+  return -1;
+}
+
+function describeVia(c: Context, p: TerminalPath): string {
+  const crossing = firstCrossing(c.nl, p);
+  if (crossing) return `, because ${crossingSentence(crossing)}`;
+  const lead = firstUnitLeadSentence(c.nl, p);
+  return lead ? `, through ${lead}` : '';
+}
+
+function describeBuzzerPair(c: Context, p: TerminalPath): string {
+  const pin = p.terms.map((t) => c.nl.terminals[t]).find((t) => t.pair !== undefined);
+  return pin?.pair ? `: their buzzers share pair ${pin.pair} (${pairColour(pin.pair).name})` : '';
+}

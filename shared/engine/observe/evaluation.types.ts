@@ -1,0 +1,99 @@
+/** What the engine reports for one plan in one state. */
+import type { FarPhase } from '../sim/state.schema';
+
+export type Cadence = 'dark' | 'steady' | 'flash' | 'wink';
+export type ToneName = 'dial' | 'ringback' | 'busy' | 'reorder' | 'voice';
+export type LineStatus = 'idle' | 'in-use' | 'held' | 'ringing';
+
+export interface LineObservation {
+  line: number;
+  status: LineStatus;
+  aClosed: boolean;
+  loopClosed: boolean;
+  /** Sets whose handset or hands-free network is bridged across this line. */
+  setsOn: string[];
+  lamp: Cadence;
+  far: FarPhase;
+  joinedWith: number[];
+}
+
+export interface KeyObservation {
+  index: number;
+  label: string;
+  lamp: Cadence;
+  /** Lines whose lamp leads reach this key's lamp. */
+  lines: number[];
+}
+
+export interface SetObservation {
+  set: string;
+  offHook: boolean;
+  pressedKey: number | null;
+  handsFreeOn: boolean;
+  keys: KeyObservation[];
+  hears: number[];
+  tones: { tone: ToneName; line: number }[];
+  buzzer: boolean;
+  ringer: boolean;
+}
+
+export interface StationObservation {
+  station: string;
+  code: string;
+  calling: boolean;
+  /** Sets whose buzzer sounds for this station (only while it is being called). */
+  buzzing: string[];
+  /** Sets assigned to this station. */
+  assigned: string[];
+}
+
+export type FindingCode =
+  | 'LINES_JOINED'
+  | 'SET_HEARS_SEVERAL_LINES'
+  | 'SET_HEARS_UNSELECTED_LINE'
+  | 'LINE_LIT_UNATTENDED'
+  | 'BREAK_IN'
+  | 'INTERCOM_SOUNDS_SEVERAL'
+  | 'PRIVATE_LEAD_SHARED';
+
+export const FINDING_CODES: readonly FindingCode[] = [
+  'LINES_JOINED',
+  'SET_HEARS_SEVERAL_LINES',
+  'SET_HEARS_UNSELECTED_LINE',
+  'LINE_LIT_UNATTENDED',
+  'BREAK_IN',
+  'INTERCOM_SOUNDS_SEVERAL',
+  'PRIVATE_LEAD_SHARED',
+];
+
+/** One step along a conductor path. */
+export interface Hop {
+  part: string;
+  partName: string;
+  terminal?: string;
+  designation?: string;
+  pair?: number;
+  conductor?: 'tip' | 'ring';
+  colour?: string;
+  pin?: number;
+  port?: string;
+  cable?: string;
+  text: string;
+}
+
+export interface Finding {
+  code: FindingCode;
+  severity: 'fault' | 'warning';
+  sets: string[];
+  lines: number[];
+  stations: string[];
+  message: string;
+  path: Hop[];
+}
+
+export interface Evaluation {
+  lines: LineObservation[];
+  sets: SetObservation[];
+  stations: StationObservation[];
+  findings: Finding[];
+}

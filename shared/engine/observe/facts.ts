@@ -1,0 +1,75 @@
+/**
+ * Electrical facts of one state, read off the nets: which A-leads are grounded, which lines have a loop,
+ * which set hears which line. Shared by the state machine (applyAction) and the observations (evaluate).
+ */
+import type { Netlist } from '../model/netlist';
+import { evaluateNets, type Mech } from '../model/nets';
+
+export interface NetFacts {
+  /** Per line index (netlist.lines order). */
+  aClosed: boolean[];
+  /** A speech network is across the line's tip and ring (the hold bridge not counted). */
+  networkLoop: boolean[];
+  /** Per set index: line indices its handset or hands-free network is bridged across. */
+  hears: number[][];
+  /** Per line index: set indices hearing it. */
+  setsOn: number[][];
+  /** Root of each line's T, R, L net, and of ground. */
+  rootT: number[];
+  rootR: number[];
+  rootL: number[];
+  gnd: number;
+  roots: Int32Array;
+}
+
+export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
+  const roots = evaluateNets(nl, mech);
+  const d = nl.dense;
+  const gnd = roots[d[nl.gnd]];
+  const nLines = nl.lines.length;
+  const rootT: number[] = new Array(nLines);
+  const rootR: number[] = new Array(nLines);
+  const rootL: number[] = new Array(nLines);
+  const aClosed: boolean[] = new Array(nLines);
+  const networkLoop: boolean[] = new Array(nLines).fill(false);
+  const setsOn: number[][] = [];
+  for (let i = 0; i < nLines; i++) {
+    const l = nl.lines[i];
+    rootT[i] = roots[d[l.t]];
+    rootR[i] = roots[d[l.r]];
+    rootL[i] = roots[d[l.l]];
+    aClosed[i] = roots[d[l.a]] === gnd;
+    setsOn.push([]);
+  }
+  const hears: number[][] = nl.sets.map(() => []);
+  for (const e of nl.elements) {
+    if (e.kind !== 'network') continue;
+    const ra = roots[d[e.a]];
+    const rb = roots[d[e.b]];
+    if (ra === rb) continue;
+    for (let i = 0; i < nLines; i++) {
+      if ((ra === rootT[i] && rb === rootR[i]) || (ra === rootR[i] && rb === rootT[i])) {
+        networkLoop[i] = true;
+        if (e.owner >= 0 && !hears[e.owner].includes(i)) {
+          hears[e.owner].push(i);
+          setsOn[i].push(e.owner);
+        }
+      }
+    }
+  }
+  for (const h of hears) h.sort((a, b) => a - b);
+  for (const s of setsOn) s.sort((a, b) => a - b);
+  return { aClosed, networkLoop, hears, setsOn, rootT, rootR, rootL, gnd, roots };
+}
+
+/** Line numbers a set has selected: its latched line key's line, or the lines a keyless set is always on. */
+export function selectedLines(nl: Netlist, setIndex: number, mech: Mech): number[] {
+  const s = nl.sets[setIndex];
+  const key = mech.pressedKey[setIndex];
+  if (key > 0) return s.keyLine[key] > 0 ? [s.keyLine[key]] : [];
+  return s.fixedLines;
+}
+
+export function isActive(mech: Mech, setIndex: number): boolean {
+  return mech.offHook[setIndex] === 1 || mech.handsFreeOn[setIndex] === 1;
+}

@@ -1,0 +1,208 @@
+/** Conductor paths: breadth-first search over wires and (optionally) the contacts closed in one state. */
+import { pairColour } from '../document/cable-code';
+import type { Netlist, PartInfo } from '../model/netlist';
+import { isContactClosed, type Mech } from '../model/nets';
+import type { LeadSpec } from '../templates/template.types';
+import type { Hop } from './evaluation.types';
+
+interface Adjacency {
+  offset: Int32Array;
+  to: Int32Array;
+  edge: Int32Array;
+}
+
+const adjacencyCache = new WeakMap<Netlist, Adjacency>();
+
+function adjacency(nl: Netlist): Adjacency {
+  let adj = adjacencyCache.get(nl);
+  if (adj) return adj;
+  const n = nl.terminals.length;
+  const degree = new Int32Array(n + 1);
+  for (const e of nl.edges) {
+    degree[e.a + 1]++;
+    degree[e.b + 1]++;
+  }
+  for (let i = 0; i < n; i++) degree[i + 1] += degree[i];
+  const offset = degree.slice();
+  const fill = degree.slice();
+  const to = new Int32Array(nl.edges.length * 2);
+  const edge = new Int32Array(nl.edges.length * 2);
+  nl.edges.forEach((e, i) => {
+    to[fill[e.a]] = e.b;
+    edge[fill[e.a]++] = i;
+    to[fill[e.b]] = e.a;
+    edge[fill[e.b]++] = i;
+  });
+  adj = { offset, to, edge };
+  adjacencyCache.set(nl, adj);
+  return adj;
+}
+
+export interface TerminalPath {
+  terms: number[];
+  /** edges[i] joins terms[i] and terms[i + 1]. */
+  edges: number[];
+}
+
+/** Shortest conductor path between two terminals; mech null = wires only (no contacts). */
+export function findPath(nl: Netlist, from: number, to: number, mech: Mech | null): TerminalPath | null {
+  const adj = adjacency(nl);
+  const n = nl.terminals.length;
+  const prev = new Int32Array(n).fill(-1);
+  const prevEdge = new Int32Array(n).fill(-1);
+  prev[from] = from;
+  const queue = [from];
+  for (let q = 0; q < queue.length; q++) {
+    const t = queue[q];
+    if (t === to) break;
+    for (let k = adj.offset[t]; k < adj.offset[t + 1]; k++) {
+      const next = adj.to[k];
+      if (prev[next] !== -1) continue;
+      const e = nl.edges[adj.edge[k]];
+      if (e.kind === 'contact' && (!mech || !isContactClosed(nl.contacts[e.contact!], mech))) continue;
+      prev[next] = t;
+      prevEdge[next] = adj.edge[k];
+      queue.push(next);
+    }
+  }
+  if (prev[to] === -1) return null;
+  const terms = [to];
+  const edges: number[] = [];
+  for (let t = to; t !== from; t = prev[t]) {
+    edges.push(prevEdge[t]);
+    terms.push(prev[t]);
+  }
+  return { terms: terms.reverse(), edges: edges.reverse() };
+}
+
+const KSU_LEAD_NAMES: Record<string, string> = { T: 'tip', R: 'ring', A: 'A-lead', L: 'lamp lead' };
+
+function portLabel(part: PartInfo, port: string): string {
+  if (part.kind === 'ksu') return `station port ${port.replace(/^port-/, '')}`;
+  return part.template?.ports.find((p) => p.name === port)?.label.toLowerCase() ?? port;
+}
+
+export function terminalText(nl: Netlist, term: number): string {
+  const t = nl.terminals[term];
+  const part = nl.parts[t.part];
+  if (t.pin !== undefined && t.pair !== undefined) {
+    return `${part.name}, ${portLabel(part, t.port!)} pin ${t.pin} (pair ${t.pair} ${t.conductor}, ${pairColour(t.pair).name})`;
+  }
+  if (part.kind === 'ksu') {
+    const m = /^L(\d+)\.([TRAL])$/.exec(t.name);
+    if (m) return `${part.name}, line ${m[1]} ${KSU_LEAD_NAMES[m[2]]}`;
+    if (t.name === 'GND') return `${part.name}, ground (A1 / LG)`;
+    const st = nl.stations.find((s) => s.t === term || s.r === term);
+    if (st) return `${part.name}, intercom buzzer output for station ${st.code}`;
+  }
+  const d = t.lead?.designation;
+  return `${part.name}, terminal ${t.name}${d && d !== t.name ? ` (${d})` : ''}`;
+}
+
+export function toHops(nl: Netlist, path: TerminalPath): Hop[] {
+  return path.terms.map((term, i) => {
+    const t = nl.terminals[term];
+    const part = nl.parts[t.part];
+    const via = i > 0 ? nl.edges[path.edges[i - 1]] : undefined;
+    const hop: Hop = { part: part.id, partName: part.name, text: terminalText(nl, term) };
+    if (t.pin !== undefined) {
+      hop.pin = t.pin;
+      hop.port = t.port;
+      hop.pair = t.pair;
+      hop.conductor = t.conductor;
+      hop.colour = pairColour(t.pair!).name;
+    } else {
+      hop.terminal = t.name;
+      if (t.lead) hop.designation = t.lead.designation;
+      // A part terminal entered or left by a lead: name the cord pair that lead is on.
+      const next = i < path.edges.length ? nl.edges[path.edges[i]] : undefined;
+      const leadEdge = via?.kind === 'lead' ? via : next?.kind === 'lead' ? next : undefined;
+      if (leadEdge) {
+        const pin = nl.terminals[leadEdge === via ? path.terms[i - 1] : path.terms[i + 1]];
+        if (pin.pair !== undefined) {
+          hop.pair = pin.pair;
+          hop.conductor = pin.conductor;
+          hop.colour = pairColour(pin.pair).name;
+          hop.designation = leadEdge.lead?.designation ?? hop.designation;
+        }
+      }
+    }
+    if (via) {
+      hop.text += ` — via ${via.label}`;
+      if (via.cable) hop.cable = via.cable;
+    }
+    return hop;
+  });
+}
+
+export interface Crossing {
+  from: PartInfo;
+  to: PartInfo;
+  lead: LeadSpec | undefined;
+  pair: number;
+  through: string[];
+}
+
+/** The first place a path leaves one set (or add-on) by its cord and enters another without passing the KSU. */
+export function firstCrossing(nl: Netlist, path: TerminalPath): Crossing | null {
+  const isUnit = (p: PartInfo) => p.kind === 'set' || p.kind === 'add-on';
+  let lastUnit = -1;
+  for (let i = 0; i < path.terms.length; i++) {
+    const t = nl.terminals[path.terms[i]];
+    const part = nl.parts[t.part];
+    if (part.kind === 'ksu') {
+      lastUnit = -1;
+      continue;
+    }
+    if (t.pin !== undefined || !isUnit(part)) continue;
+    if (lastUnit >= 0 && nl.terminals[path.terms[lastUnit]].part !== t.part) {
+      const from = nl.parts[nl.terminals[path.terms[lastUnit]].part];
+      const exitPin = path.terms[lastUnit + 1];
+      const exitEdge = nl.edges[path.edges[lastUnit]];
+      const through: string[] = [];
+      for (let j = lastUnit + 1; j < i; j++) {
+        const p = nl.parts[nl.terminals[path.terms[j]].part];
+        if (p !== from && p !== part && !through.includes(p.name)) through.push(p.name);
+      }
+      return {
+        from,
+        to: part,
+        lead: exitEdge.lead,
+        pair: nl.terminals[exitPin].pair ?? 0,
+        through,
+      };
+    }
+    lastUnit = i;
+  }
+  return null;
+}
+
+/** Names of the parts whose own terminals (not just pins) lie on the path, KSU excluded. */
+export function unitsAlong(nl: Netlist, path: TerminalPath): string[] {
+  const out: string[] = [];
+  for (const term of path.terms) {
+    const t = nl.terminals[term];
+    const p = nl.parts[t.part];
+    if (t.pin === undefined && p.kind !== 'ksu' && !out.includes(p.name)) out.push(p.name);
+  }
+  return out;
+}
+
+export function crossingSentence(c: Crossing): string {
+  const lead = c.lead ? `${c.lead.role} (${c.lead.designation})` : 'lead';
+  const via = c.through.length ? ` through ${c.through.join(' and ')}` : '';
+  return `${c.from.name}'s ${lead} on pair ${c.pair} (${pairColour(c.pair).name}) is bridged to ${c.to.name}'s${via}`;
+}
+
+/** The first lead by which the path enters a set or add-on from its cord: "Front's A-lead control (AC) on pair 25 (violet-slate)". */
+export function firstUnitLeadSentence(nl: Netlist, path: TerminalPath): string | null {
+  for (let i = 0; i < path.edges.length; i++) {
+    const e = nl.edges[path.edges[i]];
+    if (e.kind !== 'lead' || !e.lead) continue;
+    const pinTerm = nl.terminals[path.terms[i]].pin !== undefined ? path.terms[i] : path.terms[i + 1];
+    const pair = nl.terminals[pinTerm].pair ?? e.lead.pair;
+    const part = nl.parts[nl.terminals[pinTerm].part];
+    return `${part.name}'s ${e.lead.role} (${e.lead.designation}) on pair ${pair} (${pairColour(pair).name})`;
+  }
+  return null;
+}

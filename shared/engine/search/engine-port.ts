@@ -1,0 +1,11 @@
+/**
+ * The few core functions sweep and cure call, gathered in one place so search/ depends on the core through one file.
+ * Imports point at the core's modules (not ../index) so that index.ts can re-export search/ without a cycle.
+ */
+export { applyAction, initialState } from '../sim/actions';
+export { evaluate, evaluateWithNets, computeNets } from '../observe/evaluate';
+export { getTemplate, TEMPLATES } from '../templates/part-templates';
+export { standardCrossConnect, effectiveCrossConnect } from '../model/cross-connect';
+export type { Plan, LeadChange, CrossConnect, KeySet, AddOn } from '../document/plan.schema';
+export type { SimState, SimAction, SetState } from '../sim/state.schema';
+export type { Evaluation, Finding, FindingCode, Hop } from '../observe/evaluation.types';

@@ -1,0 +1,18 @@
+/** Sweep and cure: the search layer over the engine core. Imported through shared/engine/index.ts only. */
+export {
+  sweep,
+  planSweep,
+  setMoves,
+  sweepEvents,
+  stationPortOfSets,
+  findingKey,
+  EXHAUSTIVE_STATE_LIMIT,
+  type SweepOptions,
+  type SweepResult,
+  type SweptFinding,
+  type SweepStrategy,
+  type SetMove,
+  type SweepEvent,
+} from './sweep';
+export { cure, applyCure, EXHAUSTIVE_CURE_SETS, type CureChange, type CureOptions, type CureResult } from './cure';
+export { checkRequired, linesOfSet, type RequiredFailure } from './required';

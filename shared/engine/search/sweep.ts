@@ -1,0 +1,397 @@
+/**
+ * Sweep: operate a plan in every reachable combination of set states and KSU events and collect what goes wrong.
+ * Method and limits: ./README.md.
+ */
+import {
+  applyAction,
+  computeNets,
+  evaluate,
+  evaluateWithNets,
+  getTemplate,
+  initialState,
+  type Finding,
+  type Plan,
+  type SimAction,
+  type SimState,
+} from './engine-port';
+
+export type SweepStrategy = 'exhaustive' | 'reduced';
+
+/**
+ * Largest number of states the sweep visits exhaustively. Three six-key sets with one hands-free add-on and a
+ * five-line, three-station KSU come to 12 × 12 × 24 mechanical states × 14 events = 48 384 states.
+ */
+export const EXHAUSTIVE_STATE_LIMIT = 60_000;
+
+export interface SweepOptions {
+  /** Called every few hundred states and once at the end. */
+  onProgress?: (done: number, total: number) => void;
+  /** Polled every few dozen states; returning true ends the sweep early (complete: false). */
+  shouldStop?: () => boolean;
+  /** Visit at most this many states. */
+  limit?: number;
+  /** 'auto' (default) picks exhaustive when the state count is at most EXHAUSTIVE_STATE_LIMIT. */
+  strategy?: 'auto' | SweepStrategy;
+  /**
+   * 'single' (default): at most one KSU event at a time (a ringing line, an intercom call or a held line).
+   * 'product': every combination of ringing line × intercom call × held line; slower, for cross-checks.
+   */
+  events?: 'single' | 'product';
+  /**
+   * Reach every state through applyAction and evaluate it from scratch (slow; the reference the fast path is
+   * tested against).
+   */
+  exact?: boolean;
+}
+
+/** One finding, with the smallest state found that shows it and the actions that reach that state. */
+export interface SweptFinding {
+  finding: Finding;
+  state: SimState;
+  /** Active elements in the state: sets off-hook, keys latched, hands-free on, ringing line, intercom call, held line. */
+  stateSize: number;
+  /** Applied in order to initialState(plan), these reach `state`. */
+  actions: SimAction[];
+  /** The KSU event of the state (what happened before the sets moved). */
+  event: SweepEvent;
+}
+
+export interface SweepResult {
+  strategy: SweepStrategy;
+  statesVisited: number;
+  /** States the chosen strategy would visit in full. */
+  statesPlanned: number;
+  /** False when shouldStop or limit ended the sweep before every planned state was visited. */
+  complete: boolean;
+  findings: SweptFinding[];
+}
+
+/** One set's mechanical position. */
+export interface SetMove {
+  offHook: boolean;
+  key: number | null;
+  handsFree: boolean;
+}
+
+/** What the KSU and the far end do, applied before the sets move. */
+export interface SweepEvent {
+  held: number | null;
+  ringing: number | null;
+  intercom: string | null;
+}
+
+function moveSize(m: SetMove): number {
+  return (m.offHook ? 1 : 0) + (m.key === null ? 0 : 1) + (m.handsFree ? 1 : 0);
+}
+
+function eventSize(e: SweepEvent): number {
+  return (e.held === null ? 0 : 1) + (e.ringing === null ? 0 : 1) + (e.intercom === null ? 0 : 1);
+}
+
+/** Every position of one set, idle first and then by increasing size. */
+export function setMoves(plan: Plan, setIndex: number): SetMove[] {
+  const set = plan.sets[setIndex];
+  const keys = (getTemplate(set.template)?.keys ?? []).filter((k) => k.kind === 'line').map((k) => k.index);
+  const handsFree = plan.addOns.some((a) => a.serves === set.id) ? [false, true] : [false];
+  const out: SetMove[] = [];
+  for (const hf of handsFree) {
+    for (const key of [null, ...keys]) {
+      for (const offHook of [false, true]) out.push({ offHook, key, handsFree: hf });
+    }
+  }
+  return out.sort((a, b) => moveSize(a) - moveSize(b));
+}
+
+/** The actions that take one idle set to a position. */
+function moveActions(setId: string, m: SetMove): SimAction[] {
+  const out: SimAction[] = [];
+  if (m.handsFree) out.push({ kind: 'hands-free', set: setId, on: true });
+  if (m.key !== null) out.push({ kind: 'press-key', set: setId, key: m.key });
+  if (m.offHook) out.push({ kind: 'lift-handset', set: setId });
+  return out;
+}
+
+/** A set that can put a line on hold: it has a key for the line and a hold key. */
+function holdActions(plan: Plan, line: number): SimAction[] | null {
+  for (const set of plan.sets) {
+    const keys = getTemplate(set.template)?.keys ?? [];
+    const lineKey = keys.find((k) => k.kind === 'line' && k.line === line);
+    if (lineKey && keys.some((k) => k.kind === 'hold')) {
+      return [
+        { kind: 'press-key', set: set.id, key: lineKey.index },
+        { kind: 'lift-handset', set: set.id },
+        { kind: 'press-hold', set: set.id },
+        { kind: 'hang-up', set: set.id },
+      ];
+    }
+  }
+  return null;
+}
+
+export function eventActions(plan: Plan, e: SweepEvent): SimAction[] {
+  const out: SimAction[] = [];
+  if (e.held !== null) out.push(...(holdActions(plan, e.held) ?? []));
+  if (e.ringing !== null) out.push({ kind: 'ring-line', line: e.ringing });
+  if (e.intercom !== null) out.push({ kind: 'intercom-call', station: e.intercom });
+  return out;
+}
+
+/** The KSU events of a sweep, 'none' first. Held lines are only those some set can hold. */
+export function sweepEvents(plan: Plan, mode: 'single' | 'product' = 'single'): SweepEvent[] {
+  const lines = plan.ksu.lines.map((l) => l.number);
+  const holdable = lines.filter((l) => holdActions(plan, l) !== null);
+  const stations = plan.ksu.stations.map((s) => s.id);
+  const none: SweepEvent = { held: null, ringing: null, intercom: null };
+  if (mode === 'single') {
+    return [
+      none,
+      ...lines.map((ringing) => ({ ...none, ringing })),
+      ...stations.map((intercom) => ({ ...none, intercom })),
+      ...holdable.map((held) => ({ ...none, held })),
+    ];
+  }
+  const out: SweepEvent[] = [];
+  for (const held of [null, ...holdable]) {
+    for (const ringing of [null, ...lines.filter((l) => l !== held)]) {
+      for (const intercom of [null, ...stations]) out.push({ held, ringing, intercom });
+    }
+  }
+  return out.sort((a, b) => eventSize(a) - eventSize(b));
+}
+
+/**
+ * Mechanical combinations (one move index per set) in increasing total size.
+ * maxActive limits how many sets may leave idle (the reduced strategy); groups, when given, say which sets may be
+ * active together (sets on the same KSU station port).
+ */
+function* combinations(
+  moves: SetMove[][],
+  maxActive: number,
+  sameGroup: (i: number, j: number) => boolean,
+): Generator<number[]> {
+  const n = moves.length;
+  const sizes = moves.map((ms) => ms.map(moveSize));
+  const combo = new Array<number>(n).fill(0);
+  // Largest size the sets from i on can still add, for pruning.
+  const rest = new Array<number>(n + 1).fill(0);
+  for (let i = n - 1; i >= 0; i--) rest[i] = rest[i + 1] + Math.max(...sizes[i]);
+
+  function* fill(i: number, budget: number, active: number[]): Generator<number[]> {
+    if (i === n) {
+      if (budget === 0) yield combo.slice();
+      return;
+    }
+    if (budget > rest[i]) return;
+    combo[i] = 0;
+    yield* fill(i + 1, budget, active);
+    if (active.length >= maxActive || active.some((j) => !sameGroup(i, j))) return;
+    for (let m = 1; m < moves[i].length; m++) {
+      const s = sizes[i][m];
+      if (s > budget) continue;
+      combo[i] = m;
+      active.push(i);
+      yield* fill(i + 1, budget - s, active);
+      active.pop();
+    }
+    combo[i] = 0;
+  }
+  for (let size = 0; size <= rest[0]; size++) yield* fill(0, size, []);
+}
+
+function countCombinations(
+  moves: SetMove[][],
+  maxActive: number,
+  sameGroup: (i: number, j: number) => boolean,
+): number {
+  if (maxActive >= moves.length) return moves.reduce((p, ms) => p * ms.length, 1);
+  // maxActive is 2 here: none, one set, or two sets of one group.
+  let total = 1;
+  for (let i = 0; i < moves.length; i++) {
+    total += moves[i].length - 1;
+    for (let j = i + 1; j < moves.length; j++) {
+      if (sameGroup(i, j)) total += (moves[i].length - 1) * (moves[j].length - 1);
+    }
+  }
+  return total;
+}
+
+/**
+ * The KSU station port each set's cord reaches through cables, adapters and add-ons (-1 when it reaches none).
+ * Sets on different ports only meet inside the KSU line circuits, which the single-set states already cover.
+ */
+export function stationPortOfSets(plan: Plan): number[] {
+  const adjacent = new Map<string, string[]>();
+  const link = (a: string, b: string) => {
+    adjacent.set(a, [...(adjacent.get(a) ?? []), b]);
+    adjacent.set(b, [...(adjacent.get(b) ?? []), a]);
+  };
+  for (const c of plan.cables) {
+    const from = c.from.part === plan.ksu.id ? `${c.from.part}/${c.from.port}` : c.from.part;
+    const to = c.to.part === plan.ksu.id ? `${c.to.part}/${c.to.port}` : c.to.part;
+    link(from, to);
+  }
+  const portNumber = (node: string) => Number(/(\d+)$/.exec(node)?.[1] ?? -1);
+  return plan.sets.map((set) => {
+    const seen = new Set([set.id]);
+    const queue = [set.id];
+    while (queue.length > 0) {
+      const node = queue.shift()!;
+      if (node.startsWith(`${plan.ksu.id}/`)) return portNumber(node);
+      for (const next of adjacent.get(node) ?? []) {
+        if (!seen.has(next)) {
+          seen.add(next);
+          queue.push(next);
+        }
+      }
+    }
+    return -1;
+  });
+}
+
+const keyCache = new WeakMap<object, string>();
+
+/** Identity of a finding across states: code + sets + lines + stations, each in sorted order. */
+export function findingKey(f: Pick<Finding, 'code' | 'sets' | 'lines' | 'stations'>): string {
+  let key = keyCache.get(f);
+  if (key === undefined) {
+    const sorted = (xs: readonly string[]) => (xs.length < 2 ? xs.join(',') : [...xs].sort().join(','));
+    const lines = f.lines.length < 2 ? f.lines.join(',') : [...f.lines].sort((a, b) => a - b).join(',');
+    key = `${f.code}|${sorted(f.sets)}|${lines}|${sorted(f.stations)}`;
+    keyCache.set(f, key);
+  }
+  return key;
+}
+
+function applyAll(plan: Plan, state: SimState, actions: readonly SimAction[]): SimState {
+  let s = state;
+  for (const a of actions) s = applyAction(plan, s, a);
+  return s;
+}
+
+interface Planned {
+  strategy: SweepStrategy;
+  moves: SetMove[][];
+  events: SweepEvent[];
+  maxActive: number;
+  sameGroup: (i: number, j: number) => boolean;
+  /** Mechanical combinations to visit; each is visited once per event. */
+  combinations: number;
+  total: number;
+}
+
+/** Decides the strategy and counts the states it will visit. */
+export function planSweep(plan: Plan, opts: Pick<SweepOptions, 'strategy' | 'events'> = {}): Planned {
+  const moves = plan.sets.map((_, i) => setMoves(plan, i));
+  const events = sweepEvents(plan, opts.events);
+  const anyGroup = () => true;
+  const all = countCombinations(moves, moves.length, anyGroup);
+  const wanted = opts.strategy ?? 'auto';
+  if (wanted === 'exhaustive' || (wanted === 'auto' && all * events.length <= EXHAUSTIVE_STATE_LIMIT)) {
+    const maxActive = moves.length;
+    return { strategy: 'exhaustive', moves, events, maxActive, sameGroup: anyGroup, combinations: all, total: all * events.length };
+  }
+  const ports = stationPortOfSets(plan);
+  const sameGroup = (i: number, j: number) => ports[i] === ports[j];
+  const reduced = countCombinations(moves, 2, sameGroup);
+  return { strategy: 'reduced', moves, events, maxActive: 2, sameGroup, combinations: reduced, total: reduced * events.length };
+}
+
+/**
+ * Visits the planned states and returns each distinct finding (code + sets + lines + stations) once, with the
+ * smallest state that shows it.
+ */
+export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
+  const planned = planSweep(plan, opts);
+  const { moves, events } = planned;
+  const limit = opts.limit ?? Number.POSITIVE_INFINITY;
+  const start = initialState(plan);
+
+  // Each event's opening state, built once; events that leave the plan where 'none' does are skipped.
+  const seenOpenings = new Set<string>();
+  const openings: { event: SweepEvent; actions: SimAction[]; state: SimState; size: number }[] = [];
+  for (const event of events) {
+    const actions = eventActions(plan, event);
+    const state = applyAll(plan, start, actions);
+    const key = JSON.stringify(state);
+    if (seenOpenings.has(key)) continue;
+    seenOpenings.add(key);
+    openings.push({ event, actions, state, size: eventSize(event) });
+  }
+  const planTotal = planned.combinations * openings.length;
+  const total = Math.min(planTotal, limit);
+
+  const best = new Map<string, SweptFinding>();
+  let visited = 0;
+  let stopped = false;
+
+  const record = (
+    findings: Finding[],
+    size: number,
+    event: SweepEvent,
+    actions: () => SimAction[],
+    state: SimState | null,
+  ) => {
+    for (const finding of findings) {
+      const key = findingKey(finding);
+      const known = best.get(key);
+      if (known && known.stateSize <= size) continue;
+      best.set(key, { finding, state: state ?? start, stateSize: size, actions: actions(), event });
+    }
+  };
+
+  outer: for (const combo of combinations(moves, planned.maxActive, planned.sameGroup)) {
+    let comboSize = 0;
+    const comboActions: SimAction[] = [];
+    const sets: SimState['sets'] = {};
+    for (let i = 0; i < combo.length; i++) {
+      const m = moves[i][combo[i]];
+      sets[plan.sets[i].id] = { offHook: m.offHook, pressedKey: m.key, handsFreeOn: m.handsFree };
+      if (combo[i] === 0) continue;
+      comboSize += moveSize(m);
+      comboActions.push(...moveActions(plan.sets[i].id, m));
+    }
+    // The sets' positions fix every contact, so the nets are solved once for all events.
+    const nets = opts.exact ? null : computeNets(plan, { ...start, sets });
+    for (const opening of openings) {
+      if (visited >= limit || (visited % 64 === 0 && opts.shouldStop?.())) {
+        stopped = true;
+        break outer;
+      }
+      let evaluation;
+      let state: SimState | null = null;
+      if (nets) {
+        // Moving from idle only closes contacts, so no line changes circuit on the way: the opening's line
+        // states with the sets in place show the same findings as the settled state (checked by the tests
+        // against exact mode). The kept states are replayed exactly below.
+        evaluation = evaluateWithNets(plan, { ...opening.state, sets }, nets, { paths: false });
+      } else {
+        state = applyAll(plan, opening.state, comboActions);
+        evaluation = evaluate(plan, state, { paths: false });
+      }
+      visited++;
+      if (evaluation.findings.length > 0) {
+        const actions = () => [...opening.actions, ...comboActions];
+        record(evaluation.findings, opening.size + comboSize, opening.event, actions, state);
+      }
+      if (visited % 256 === 0) opts.onProgress?.(visited, total);
+    }
+  }
+  opts.onProgress?.(visited, total);
+
+  // The kept states, reached by their actions, evaluated once more in full for paths and sentences.
+  for (const [key, entry] of best) {
+    entry.state = applyAll(plan, start, entry.actions);
+    const full = evaluate(plan, entry.state).findings.find((f) => findingKey(f) === key);
+    if (full) entry.finding = full;
+  }
+  const findings = [...best.values()].sort(
+    (a, b) => a.stateSize - b.stateSize || findingKey(a.finding).localeCompare(findingKey(b.finding)),
+  );
+  return {
+    strategy: planned.strategy,
+    statesVisited: visited,
+    statesPlanned: planTotal,
+    complete: !stopped && visited === planTotal,
+    findings,
+  };
+}

@@ -1,0 +1,11 @@
+import { createApp } from 'vue';
+import App from './App.vue';
+import './plugins/fonts';
+import './styles/base.css';
+import { pinia } from './plugins/pinia';
+import { createBrowserRouter } from './plugins/router';
+
+const app = createApp(App);
+app.use(pinia);
+app.use(createBrowserRouter(pinia));
+app.mount('#app');

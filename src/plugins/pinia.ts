@@ -1,0 +1,3 @@
+import { createPinia } from 'pinia';
+
+export const pinia = createPinia();

@@ -1,0 +1,23 @@
+import type { Pinia } from 'pinia';
+import { createWebHistory } from 'vue-router';
+import { setUnauthenticatedHandler } from '@/api/client';
+import { createAppRouter } from '@/router';
+import { useSessionStore } from '@/stores/session.store';
+import { createDiscrete } from './naive-ui';
+
+export function createBrowserRouter(pinia: Pinia) {
+  const { loadingBar } = createDiscrete(pinia);
+  const router = createAppRouter(createWebHistory(import.meta.env.BASE_URL), pinia, loadingBar);
+
+  // A session that ends while a page is open (expiry, password changed elsewhere): back to sign-in,
+  // then return to the same page. The Bench is left alone: it holds unsaved edits and reports the
+  // failed save itself, so leaving it here could lose work.
+  setUnauthenticatedHandler(() => {
+    const session = useSessionStore(pinia);
+    const current = router.currentRoute.value;
+    if (!session.user || current.name === 'bench') return;
+    session.setUser(null);
+    if (!current.meta.public) void router.replace({ name: 'sign-in', query: { next: current.fullPath } });
+  });
+  return router;
+}

@@ -1,0 +1,84 @@
+import type { RouteRecordRaw } from 'vue-router';
+import type { Role } from '@shared/schemas';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Shown in the tab title. */
+    title?: string;
+    /** Open to anyone; every other route needs a signed-in user. */
+    public?: boolean;
+    /** Sign-in and sign-up: a signed-in user is sent to their home instead. */
+    guestOnly?: boolean;
+    /** Roles allowed in; absent means every signed-in role. */
+    roles?: readonly Role[];
+    /** The page fills the window below the top bar (the canvas). */
+    fullBleed?: boolean;
+  }
+}
+
+export const DRILL_ROLES: readonly Role[] = ['trainee', 'instructor', 'admin'];
+export const PEOPLE_ROLES: readonly Role[] = ['admin'];
+
+export const routes: RouteRecordRaw[] = [
+  {
+    path: '/',
+    name: 'landing',
+    component: () => import('@/pages/landing/index.vue'),
+    meta: { public: true, title: 'Key systems, wired right' },
+  },
+  {
+    path: '/sign-in',
+    name: 'sign-in',
+    component: () => import('@/pages/sign-in/index.vue'),
+    meta: { public: true, guestOnly: true, title: 'Sign in' },
+  },
+  {
+    path: '/sign-up',
+    name: 'sign-up',
+    component: () => import('@/pages/sign-up/index.vue'),
+    meta: { public: true, guestOnly: true, title: 'Create an account' },
+  },
+  {
+    path: '/plans',
+    name: 'plans',
+    component: () => import('@/pages/plans/index.vue'),
+    meta: { title: 'Plans' },
+  },
+  {
+    path: '/plans/:id',
+    name: 'bench',
+    component: () => import('@/pages/bench/index.vue'),
+    props: true,
+    meta: { title: 'Bench', fullBleed: true },
+  },
+  {
+    path: '/drills',
+    name: 'drills',
+    component: () => import('@/pages/drills/index.vue'),
+    meta: { title: 'Drills', roles: DRILL_ROLES },
+  },
+  {
+    path: '/account',
+    name: 'account',
+    component: () => import('@/pages/account/index.vue'),
+    meta: { title: 'Account' },
+  },
+  {
+    path: '/people',
+    name: 'people',
+    component: () => import('@/pages/people/index.vue'),
+    meta: { title: 'People', roles: PEOPLE_ROLES },
+  },
+  {
+    path: '/forbidden',
+    name: 'forbidden',
+    component: () => import('@/pages/errors/ForbiddenPage.vue'),
+    meta: { public: true, title: 'Not for this account' },
+  },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('@/pages/errors/NotFoundPage.vue'),
+    meta: { public: true, title: 'Page not found' },
+  },
+];

@@ -1,0 +1,15 @@
+import { planBuilder } from '../support/plan-builder';
+import { applyAction, initialState } from '../../shared/engine/sim/actions';
+import { evaluate } from '../../shared/engine/observe/evaluate';
+const b = planBuilder();
+const ksu = b.ksu({ lines: 5, stations: 2 });
+const a = b.set('six-key-hf', 'Front', { station: ksu.stations[0] });
+const w = b.set('six-key-hf', 'Work', { station: ksu.stations[1] });
+const ad = b.adapter();
+const hf = b.addOn(a, 'HF');
+b.cable(ksu.port(1), ad.plug); b.cable(ad.jack(1), hf.cord); b.cable(hf.jack, a.cord); b.cable(ad.jack(2), w.cord);
+const plan = b.build();
+let s = initialState(plan);
+s = applyAction(plan, s, { kind: 'press-key', set: 'front', key: 1 });
+s = applyAction(plan, s, { kind: 'lift-handset', set: 'work' });
+for (let i = 0; i < 100000; i++) evaluate(plan, s, { paths: false });

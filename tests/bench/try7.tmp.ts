@@ -1,0 +1,14 @@
+import { readFileSync } from 'node:fs';
+import { validatePlan, sweep, checkRequired, applyCure, evaluate, initialState, applyAction } from '../../shared/engine';
+const name = process.argv[2];
+const v = validatePlan(JSON.parse(readFileSync(`shared/engine/examples/${name}.json`, 'utf8')));
+if (!v.ok) throw new Error('bad');
+const plan = v.plan;
+const changes = JSON.parse(process.argv[3]);
+const p2 = applyCure(plan, { changes });
+console.log(JSON.stringify(p2.ksu.crossConnect?.filter((x) => x.pair >= 16)));
+console.log(checkRequired(p2));
+const r = sweep(p2);
+for (const f of r.findings) console.log(f.finding.code, f.finding.sets, f.finding.lines, f.finding.stations, JSON.stringify(f.actions), f.finding.message);
+let s = initialState(p2); s = applyAction(p2, s, { kind: 'intercom-call', station: 'st-22' });
+console.log(JSON.stringify(evaluate(p2, s).stations));

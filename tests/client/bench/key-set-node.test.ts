@@ -1,0 +1,78 @@
+import { describe, expect, it } from 'vitest';
+import { mount } from '@vue/test-utils';
+import { Position } from '@vue-flow/core';
+import KeySetNode from '@/components/bench/nodes/KeySetNode.vue';
+import { benchWith } from './bench-fixture';
+
+function mountSet(partId = 'front') {
+  return mount(KeySetNode, {
+    props: {
+      id: partId,
+      type: 'key-set',
+      selected: false,
+      connectable: true,
+      position: { x: 0, y: 0 },
+      dimensions: { width: 240, height: 200 },
+      data: { partId },
+      events: {},
+      dragging: false,
+      resizing: false,
+      zIndex: 0,
+      targetPosition: Position.Left,
+      sourcePosition: Position.Right,
+      dragHandle: undefined,
+    } as never,
+    // Handles need a mounted flow; their own behaviour belongs to vue-flow, not to this node.
+    global: { stubs: { Handle: true } },
+  });
+}
+
+describe('KeySetNode', () => {
+  it('renders one key per template key, each with a lamp word', () => {
+    benchWith();
+    const wrapper = mountSet();
+    const keys = wrapper.findAll('[data-testid^="key-front-"]');
+    // The six-key template: five line keys and a hold key (its title says so; template data in shared/engine/templates).
+    expect(keys).toHaveLength(6);
+    const lineKeys = keys.slice(0, 5);
+    for (const [i, key] of lineKeys.entries()) {
+      expect(key.attributes('aria-label')).toBe(`Line ${i + 1} key, lamp dark`);
+      // All sets on hook and no ringing: every lamp is dark (common practice, no published source).
+      expect(key.text()).toContain('dark');
+    }
+    expect(keys[5].attributes('aria-label')).toBe('Hold key');
+  });
+
+  it('emits press with the key index and kind, and lift / hang-up from the handset button', async () => {
+    const store = benchWith();
+    const wrapper = mountSet();
+    await wrapper.get('[data-testid="key-front-2"]').trigger('click');
+    await wrapper.get('[data-testid="key-front-6"]').trigger('click');
+    expect(wrapper.emitted('press')).toEqual([
+      [2, 'line'],
+      [6, 'hold'],
+    ]);
+
+    await wrapper.get('[data-testid="handset-front"]').trigger('click');
+    expect(wrapper.emitted('lift')).toHaveLength(1);
+    expect(wrapper.emitted('hang-up')).toBeUndefined();
+
+    store.operate({ kind: 'lift-handset', set: 'front' });
+    await wrapper.vm.$nextTick();
+    await wrapper.get('[data-testid="handset-front"]').trigger('click');
+    expect(wrapper.emitted('hang-up')).toHaveLength(1);
+  });
+
+  it('shows the engine lamp of a line in use as text and as the cadence class', async () => {
+    const store = benchWith();
+    const wrapper = mountSet('back');
+    store.operate({ kind: 'press-key', set: 'front', key: 1 });
+    store.operate({ kind: 'lift-handset', set: 'front' });
+    await wrapper.vm.$nextTick();
+    const key = wrapper.get('[data-testid="key-back-1"]');
+    // A line in use lights its lamp steady on every set bridged to it (common practice, no published source).
+    expect(key.attributes('aria-label')).toBe('Line 1 key, lamp steady');
+    expect(key.find('[data-cadence="steady"]').exists()).toBe(true);
+    expect(wrapper.get('[data-testid="key-back-2"]').attributes('aria-label')).toBe('Line 2 key, lamp dark');
+  });
+});

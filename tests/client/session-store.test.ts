@@ -1,0 +1,62 @@
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { createPinia, setActivePinia } from 'pinia';
+import type { User } from '@shared/schemas';
+import { useSessionStore } from '@/stores/session.store';
+import { ApiError } from '@/api/client';
+
+const wren: User = {
+  id: 'u-1',
+  email: 'wren@example.org',
+  displayName: 'Wren',
+  role: 'instructor',
+  createdAt: '2026-01-05T10:00:00.000Z',
+};
+
+beforeEach(() => setActivePinia(createPinia()));
+afterEach(() => vi.unstubAllGlobals());
+
+describe('useSessionStore', () => {
+  it('loads the session once even when asked twice at the same time', async () => {
+    const fetchMock = vi.fn(async () => Response.json({ user: wren }));
+    vi.stubGlobal('fetch', fetchMock);
+    const session = useSessionStore();
+
+    const [a, b] = await Promise.all([session.load(), session.load()]);
+    await session.load();
+
+    expect(a).toEqual(wren);
+    expect(b).toEqual(wren);
+    expect(fetchMock).toHaveBeenCalledTimes(1);
+    expect(session.hasRole('instructor', 'admin')).toBe(true);
+    expect(session.hasRole('admin')).toBe(false);
+  });
+
+  it('keeps the user out after a refused sign-in', async () => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () =>
+        Response.json({ error: { code: 'BAD_CREDENTIALS', message: 'Wrong' } }, { status: 401 }),
+      ),
+    );
+    const session = useSessionStore();
+
+    await expect(session.signIn({ email: 'wren@example.org', password: 'nope' })).rejects.toBeInstanceOf(
+      ApiError,
+    );
+    expect(session.user).toBeNull();
+  });
+
+  it('forgets the user on sign-out even when the server cannot be reached', async () => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Response.json({ user: wren })),
+    );
+    const session = useSessionStore();
+    await session.signIn({ email: 'wren@example.org', password: 'right password' });
+    expect(session.signedIn).toBe(true);
+
+    vi.stubGlobal('fetch', vi.fn().mockRejectedValue(new TypeError('Failed to fetch')));
+    await expect(session.signOut()).rejects.toMatchObject({ code: 'NETWORK' });
+    expect(session.user).toBeNull();
+  });
+});

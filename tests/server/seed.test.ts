@@ -1,0 +1,50 @@
+import { existsSync } from 'node:fs';
+import request from 'supertest';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { SessionInfoSchema } from '../../shared/schemas/auth.schema';
+import { PlanListSchema } from '../../shared/schemas/plans.schema';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, seed } from '../../db/seeds/demo-accounts.seed';
+import { isDatabaseEmpty } from '../../server/db/database';
+import { DEMO_PLAN_FILE } from '../../server/plans/demo-plan';
+import { startTestServer, type TestServer } from './server.harness';
+
+let server: TestServer;
+beforeAll(async () => {
+  server = await startTestServer();
+});
+afterAll(async () => {
+  await server.close();
+});
+
+it('creates one demo account per role that signs in with the demo password', async () => {
+  expect(await isDatabaseEmpty(server.db)).toBe(true);
+
+  const result = await seed(server.db);
+
+  expect(result.accounts).toBe(4); // one per role: restorer, instructor, trainee, admin (product rule)
+  expect(await isDatabaseEmpty(server.db)).toBe(false);
+  for (const account of DEMO_ACCOUNTS) {
+    const res = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email: account.email, password: DEMO_PASSWORD });
+    expect(res.status).toBe(200);
+    expect(SessionInfoSchema.parse(res.body).user?.role).toBe(account.role);
+  }
+  expect(new Set(DEMO_ACCOUNTS.map((a) => a.role))).toEqual(
+    new Set(['restorer', 'instructor', 'trainee', 'admin']),
+  );
+});
+
+it('does not duplicate accounts when run again', async () => {
+  const again = await seed(server.db);
+  expect(again.accounts).toBe(0);
+  expect(await server.db('users').count({ n: '*' }).first()).toEqual({ n: 4 });
+});
+
+it.skipIf(!existsSync(DEMO_PLAN_FILE))('gives every demo account the demo plan', async () => {
+  for (const account of DEMO_ACCOUNTS) {
+    const agent = request.agent(server.app);
+    await agent.post('/api/auth/sign-in').send({ email: account.email, password: DEMO_PASSWORD });
+    expect(PlanListSchema.parse((await agent.get('/api/plans')).body).items).toHaveLength(1);
+  }
+});
