@@ -14,7 +14,8 @@ export default defineConfig({
   },
   server: {
     port: 5173,
-    proxy: { '/api': `http://localhost:${apiPort}` },
+    // Keep the browser's Host header so the API's same-origin check accepts requests from this dev server.
+    proxy: { '/api': { target: `http://localhost:${apiPort}`, changeOrigin: false } },
   },
   worker: { format: 'es' },
   build: {
@@ -23,9 +24,10 @@ export default defineConfig({
       output: {
         codeSplitting: {
           groups: [
-            { name: 'vendor-flow', test: /node_modules[\\/]@vue-flow/ },
-            { name: 'vendor-ui', test: /node_modules[\\/](naive-ui|vueuc|vooks|seemly|css-render|@css-render|evtd|treemate|vdirs|date-fns|lodash-es)/ },
-            { name: 'vendor-vue', test: /node_modules[\\/](@vue|vue|vue-router|pinia)[\\/]/ },
+            // Priorities keep Vue itself out of the canvas chunk, so the first page does not load vue-flow.
+            { name: 'vendor-flow', test: /node_modules[\\/]@vue-flow/, priority: 1 },
+            { name: 'vendor-ui', test: /node_modules[\\/](naive-ui|vueuc|vooks|seemly|css-render|@css-render|evtd|treemate|vdirs|date-fns|lodash-es)/, priority: 2 },
+            { name: 'vendor-vue', test: /node_modules[\\/](@vue|vue|vue-router|pinia)[\\/]/, priority: 3 },
           ],
         },
       },

@@ -20,7 +20,8 @@ export interface StateIssue {
   message: string;
 }
 
-export type ReadStateResult = { ok: true; state: SimState; actions: SimAction[] | null } | { ok: false; issues: StateIssue[] };
+export type ReadStateResult =
+  { ok: true; state: SimState; actions: SimAction[] | null } | { ok: false; issues: StateIssue[] };
 
 function formatPath(path: readonly PropertyKey[]): string {
   return path.reduce<string>((out, part) => {
@@ -43,7 +44,10 @@ function actionIssues(plan: Plan, action: SimAction, at: string): StateIssue[] {
     } else if (action.kind === 'press-key') {
       const keys = getTemplate(set.template)?.keys ?? [];
       if (!keys.some((k) => k.index === action.key)) {
-        issues.push({ path: `${at}.key`, message: `${set.name} has no key ${action.key} (it has ${keys.length})` });
+        issues.push({
+          path: `${at}.key`,
+          message: `${set.name} has no key ${action.key} (it has ${keys.length})`,
+        });
       }
     } else if (action.kind === 'hands-free' && !plan.addOns.some((a) => a.serves === set.id)) {
       issues.push({ path: `${at}.set`, message: `${set.name} has no hands-free add-on` });
@@ -76,7 +80,8 @@ function stateIssues(plan: Plan, state: SimState): StateIssue[] {
   }
   const lines = new Set(plan.ksu.lines.map((l) => l.number));
   state.lines.forEach((l, i) => {
-    if (!lines.has(l.line)) issues.push({ path: `lines[${i}].line`, message: `The KSU has no line ${l.line}` });
+    if (!lines.has(l.line))
+      issues.push({ path: `lines[${i}].line`, message: `The KSU has no line ${l.line}` });
   });
   const calling = state.intercom.calling;
   if (calling !== null && !plan.ksu.stations.some((s) => s.id === calling)) {

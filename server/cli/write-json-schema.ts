@@ -29,7 +29,7 @@ export function planJsonSchemaText(): string {
 function main(argv: string[]): number {
   const text = planJsonSchemaText();
   if (argv.includes('--check')) {
-    let current = '';
+    let current: string;
     try {
       current = readFileSync(PLAN_SCHEMA_PATH, 'utf8');
     } catch {

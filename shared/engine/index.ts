@@ -40,7 +40,13 @@ export { getNetlist, applyLeadChanges, type Netlist } from './model/netlist';
 export { createMech, fillMech, evaluateNets, type Mech } from './model/nets';
 
 export * from './sim/state.schema';
-export { initialState, normaliseState, applyAction, COMPLETE_NUMBER_LENGTH } from './sim/actions';
+export {
+  initialState,
+  normaliseState,
+  applyAction,
+  actionProblem,
+  COMPLETE_NUMBER_LENGTH,
+} from './sim/actions';
 
 export {
   evaluate,

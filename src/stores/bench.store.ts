@@ -12,6 +12,7 @@ import {
   evaluate,
   getTemplate,
   initialState,
+  validatePlan,
   type CureResult,
   type Evaluation,
   type Finding,
@@ -37,7 +38,9 @@ type Position = { x: number; y: number };
 
 /** A stable key for a finding so a selection survives re-evaluation when the same fault is still there. */
 export function findingKey(finding: Finding): string {
-  return [finding.code, finding.sets.join(','), finding.lines.join(','), finding.stations.join(',')].join('|');
+  return [finding.code, finding.sets.join(','), finding.lines.join(','), finding.stations.join(',')].join(
+    '|',
+  );
 }
 
 /** Parts whose presence changes what a simulation state can refer to. Moves and renames leave it alone. */
@@ -68,6 +71,12 @@ export function nextId(plan: Plan, prefix: string): string {
   return `${prefix}-${n}`;
 }
 
+/** The lines among `lines` that a set template has a ringer strap for. */
+export function strappable(template: string, lines: number[]): number[] {
+  const straps = getTemplate(template)?.ringerStraps ?? [];
+  return lines.filter((line) => straps.some((s) => s.line === line));
+}
+
 export const useBenchStore = defineStore('bench', () => {
   const planId = ref<string | null>(null);
   const plan = shallowRef<Plan | null>(null);
@@ -88,6 +97,12 @@ export const useBenchStore = defineStore('bench', () => {
     } catch (err) {
       return { evaluation: null, error: err instanceof Error ? err.message : String(err) };
     }
+  });
+  /** What the engine's cross-reference checks say about the drawing (the server refuses such documents). */
+  const issues = computed(() => {
+    if (!plan.value) return [];
+    const result = validatePlan(plan.value);
+    return result.ok ? [] : result.issues;
   });
   const evaluation = computed(() => evaluationResult.value.evaluation);
   const evaluationError = computed(() => evaluationResult.value.error);
@@ -219,7 +234,10 @@ export const useBenchStore = defineStore('bench', () => {
     const t = getTemplate(template);
     const id = nextId(p, 'set');
     const n = p.sets.length + 1;
-    const lines = p.ksu.lines.map((l) => l.number);
+    const lines = strappable(
+      template,
+      p.ksu.lines.map((l) => l.number),
+    );
     commit(`Add ${t?.title ?? 'set'}`, {
       ...p,
       sets: [...p.sets, { id, name: `Set ${n}`, template, ringerLines: lines, leadChanges: [], position }],
@@ -235,7 +253,14 @@ export const useBenchStore = defineStore('bench', () => {
       ...p,
       addOns: [
         ...p.addOns,
-        { id, name: `${t?.title ?? 'Add-on'} for ${partName(serves)}`.slice(0, 60), template, serves, leadChanges: [], position },
+        {
+          id,
+          name: `${t?.title ?? 'Add-on'} for ${partName(serves)}`.slice(0, 60),
+          template,
+          serves,
+          leadChanges: [],
+          position,
+        },
       ],
     });
     return id;
@@ -255,7 +280,9 @@ export const useBenchStore = defineStore('bench', () => {
   /** Moving several parts at once (a dragged selection) is one step in the history. */
   function moveParts(moves: { id: string; position: Position }[]) {
     const p = requirePlan();
-    const at = new Map(moves.map((m) => [m.id, { x: Math.round(m.position.x), y: Math.round(m.position.y) }]));
+    const at = new Map(
+      moves.map((m) => [m.id, { x: Math.round(m.position.x), y: Math.round(m.position.y) }]),
+    );
     const same = (a?: Position, b?: Position) => !!a && !!b && a.x === b.x && a.y === b.y;
     const changed = moves.filter((m) => {
       const part =
@@ -304,7 +331,10 @@ export const useBenchStore = defineStore('bench', () => {
     if (p.ksu.id === id) return { ok: false, reason: 'The key service unit stays: a plan always has one.' };
     const cable = p.cables.find((c) => c.id === id);
     if (cable) {
-      commit(`Remove cable ${cable.label || cable.id}`, { ...p, cables: p.cables.filter((c) => c.id !== id) });
+      commit(`Remove cable ${cable.label || cable.id}`, {
+        ...p,
+        cables: p.cables.filter((c) => c.id !== id),
+      });
       return { ok: true };
     }
     const gone = new Set([id, ...p.addOns.filter((a) => a.serves === id).map((a) => a.id)]);
@@ -327,21 +357,37 @@ export const useBenchStore = defineStore('bench', () => {
     const set = p.sets.find((s) => s.id === id);
     if (set) {
       const newId = nextId(p, 'set');
-      const copy = { ...set, id: newId, name: `${set.name} copy`.slice(0, 60), station: undefined, position: offset(set.position) };
+      const copy = {
+        ...set,
+        id: newId,
+        name: `${set.name} copy`.slice(0, 60),
+        station: undefined,
+        position: offset(set.position),
+      };
       commit(`Duplicate ${set.name}`, { ...p, sets: [...p.sets, copy] });
       return { ok: true, id: newId };
     }
     const addOn = p.addOns.find((a) => a.id === id);
     if (addOn) {
       const newId = nextId(p, 'addon');
-      const copy = { ...addOn, id: newId, name: `${addOn.name} copy`.slice(0, 60), position: offset(addOn.position) };
+      const copy = {
+        ...addOn,
+        id: newId,
+        name: `${addOn.name} copy`.slice(0, 60),
+        position: offset(addOn.position),
+      };
       commit(`Duplicate ${addOn.name}`, { ...p, addOns: [...p.addOns, copy] });
       return { ok: true, id: newId };
     }
     const adapter = p.adapters.find((a) => a.id === id);
     if (adapter) {
       const newId = nextId(p, 'adapter');
-      const copy = { ...adapter, id: newId, name: `${adapter.name} copy`.slice(0, 60), position: offset(adapter.position) };
+      const copy = {
+        ...adapter,
+        id: newId,
+        name: `${adapter.name} copy`.slice(0, 60),
+        position: offset(adapter.position),
+      };
       commit(`Duplicate ${adapter.name}`, { ...p, adapters: [...p.adapters, copy] });
       return { ok: true, id: newId };
     }
@@ -386,7 +432,10 @@ export const useBenchStore = defineStore('bench', () => {
     const owner = ownerOf(p, id);
     if (!owner) return;
     if (owner === 'sets') {
-      commit(label, { ...p, sets: p.sets.map((s) => (s.id === id ? { ...s, leadChanges: edit(s.leadChanges) } : s)) });
+      commit(label, {
+        ...p,
+        sets: p.sets.map((s) => (s.id === id ? { ...s, leadChanges: edit(s.leadChanges) } : s)),
+      });
     } else {
       commit(label, {
         ...p,
@@ -414,14 +463,20 @@ export const useBenchStore = defineStore('bench', () => {
     changeLeads(id, `Restore pair ${pair} in ${partName(id)}`, (list) => list.filter((c) => c.pair !== pair));
   }
 
-  function updateSet(id: string, patch: { station?: string | null; ringerLines?: number[]; template?: string }) {
+  function updateSet(
+    id: string,
+    patch: { station?: string | null; ringerLines?: number[]; template?: string },
+  ) {
     const p = requirePlan();
     const set = p.sets.find((s) => s.id === id);
     if (!set) return;
     const next = { ...set };
     if (patch.station !== undefined) next.station = patch.station ?? undefined;
     if (patch.ringerLines) next.ringerLines = [...patch.ringerLines].sort((a, b) => a - b);
-    if (patch.template) next.template = patch.template;
+    if (patch.template) {
+      next.template = patch.template;
+      next.ringerLines = strappable(patch.template, next.ringerLines);
+    }
     commit(`Change ${set.name} options`, { ...p, sets: p.sets.map((s) => (s.id === id ? next : s)) });
   }
 
@@ -435,7 +490,8 @@ export const useBenchStore = defineStore('bench', () => {
 
   function setLineCount(count: number): EditResult {
     const p = requirePlan();
-    if (!Number.isInteger(count) || count < 1 || count > 30) return { ok: false, reason: 'A KSU has 1 to 30 lines.' };
+    if (!Number.isInteger(count) || count < 1 || count > 30)
+      return { ok: false, reason: 'A KSU has 1 to 30 lines.' };
     const lines = [...p.ksu.lines].slice(0, count);
     for (let n = lines.length + 1; n <= count; n += 1) {
       lines.push({ number: n, label: '', directoryNumber: String(5550100 + n) });
@@ -451,8 +507,10 @@ export const useBenchStore = defineStore('bench', () => {
   function addStation(code: string, label: string): EditResult {
     const p = requirePlan();
     if (!/^[0-9]{1,4}$/.test(code)) return { ok: false, reason: 'An intercom code is one to four digits.' };
-    if (p.ksu.stations.some((s) => s.code === code)) return { ok: false, reason: `Code ${code} is already in use.` };
-    if (p.ksu.stations.length >= 40) return { ok: false, reason: 'A KSU takes at most 40 intercom stations.' };
+    if (p.ksu.stations.some((s) => s.code === code))
+      return { ok: false, reason: `Code ${code} is already in use.` };
+    if (p.ksu.stations.length >= 40)
+      return { ok: false, reason: 'A KSU takes at most 40 intercom stations.' };
     const id = nextId(p, 'station');
     commit(`Add intercom station ${code}`, {
       ...p,
@@ -473,7 +531,10 @@ export const useBenchStore = defineStore('bench', () => {
   /** Applying a remedy is one step in the history, like any other edit. */
   function applyRemedy(result: CureResult) {
     const p = requirePlan();
-    commit(`Apply remedy (${result.changes.length} change${result.changes.length === 1 ? '' : 's'})`, engineApplyCure(p, result));
+    commit(
+      `Apply remedy (${result.changes.length} change${result.changes.length === 1 ? '' : 's'})`,
+      engineApplyCure(p, result),
+    );
   }
 
   return {
@@ -488,6 +549,7 @@ export const useBenchStore = defineStore('bench', () => {
     selectedFindingKey,
     evaluation,
     evaluationError,
+    issues,
     findings,
     selectedFinding,
     highlight,

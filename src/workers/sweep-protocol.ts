@@ -2,8 +2,7 @@
 import type { CureResult, Plan, SweepResult } from '@shared/engine';
 
 export type SweepRequest =
-  | { type: 'sweep'; id: number; plan: Plan; limit?: number }
-  | { type: 'cure'; id: number; plan: Plan };
+  { type: 'sweep'; id: number; plan: Plan; limit?: number } | { type: 'cure'; id: number; plan: Plan };
 
 export type SweepReply =
   | { type: 'progress'; id: number; done: number; total: number }

@@ -19,7 +19,9 @@ interface Run {
 
 function sim(...args: string[]): Promise<Run> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', join(root, 'server/cli/sim.ts'), ...args], { cwd: root });
+    const child = spawn(process.execPath, ['--import', 'tsx', join(root, 'server/cli/sim.ts'), ...args], {
+      cwd: root,
+    });
     let stdout = '';
     let stderr = '';
     child.stdout.setEncoding('utf8').on('data', (d: string) => (stdout += d));
@@ -68,7 +70,11 @@ describe.concurrent('sim command line', { timeout: 60_000 }, () => {
   });
 
   it('takes a full state file', async () => {
-    const r = await sim(join(examples, 'two-set.json'), '--state', join(examples, 'states/two-set-conference.json'));
+    const r = await sim(
+      join(examples, 'two-set.json'),
+      '--state',
+      join(examples, 'states/two-set-conference.json'),
+    );
     expect(r.status).toBe(1);
     // Fact 5: different line keys on the two sets join their lines. Same source.
     expect(r.json().evaluation.findings).toHaveFinding('LINES_JOINED', { lines: [1, 5] });

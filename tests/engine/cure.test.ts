@@ -21,7 +21,10 @@ function example(file: string): Plan {
 
 const lifts = (r: CureResult) => r.changes.filter((c) => c.change.kind === 'lift');
 const moves = (r: CureResult) => r.changes.filter((c) => c.change.kind === 'move');
-const liftedPairs = (r: CureResult) => lifts(r).map((c) => c.change.pair).sort((a, b) => a - b);
+const liftedPairs = (r: CureResult) =>
+  lifts(r)
+    .map((c) => c.change.pair)
+    .sort((a, b) => a - b);
 
 function expectCured(plan: Plan, result: CureResult): Plan {
   expect(result.ok, result.message).toBe(true);
@@ -121,7 +124,13 @@ describe('cure of the other example plans', () => {
     const strict = { ...plan, required: { ...plan.required, handsFreeSets: plan.sets.map((s) => s.id) } };
     const withAddOns: Plan = {
       ...strict,
-      addOns: plan.sets.map((s, i) => ({ id: `hf-${i}`, name: `Speaker ${i}`, template: 'hands-free', serves: s.id, leadChanges: [] })),
+      addOns: plan.sets.map((s, i) => ({
+        id: `hf-${i}`,
+        name: `Speaker ${i}`,
+        template: 'hands-free',
+        serves: s.id,
+        leadChanges: [],
+      })),
     };
     const result = cure(withAddOns, { maxChanges: 2 });
     expect(result.ok).toBe(false);

@@ -25,9 +25,11 @@ describe('LINES_JOINED', () => {
     expect(f.path[f.path.length - 1].text).toContain('line 5 tip');
     const pair23 = f.path.filter((h) => h.pair === 23);
     expect(pair23.length).toBeGreaterThan(0);
-    expect(pair23.every((h) => h.colour === 'violet-green' && h.conductor === 'tip' && h.pin === 48)).toBe(
-      true,
-    ); // ICEA S-80-576; RJ21X pin 23+25
+    expect(pair23.every((h) => h.colour === 'violet-green' && h.conductor === 'tip')).toBe(true); // ICEA S-80-576
+    expect(pair23.filter((h) => h.pin !== undefined).every((h) => h.pin === 48)).toBe(true); // RJ21X: tip of pair 23 on pin 23+25
+    expect(f.path).toContainEqual(
+      expect.objectContaining({ part: a, terminal: 'CT', designation: 'CT', pair: 23, conductor: 'tip' }),
+    );
     expect(f.path.some((h) => h.cable !== undefined)).toBe(true);
   });
 
@@ -163,6 +165,8 @@ describe('BREAK_IN', () => {
     operate(plan, [
       { kind: 'press-key', set: a, key: 2 },
       { kind: 'lift-handset', set: a },
+      { kind: 'dial', set: a, digits: '5557788' },
+      { kind: 'far-answer', line: 2 },
       { kind: 'ring-line', line: 4 },
     ]);
 
@@ -181,6 +185,7 @@ describe('BREAK_IN', () => {
     );
     expect(ev).toHaveFinding('BREAK_IN', { sets: [b, a], lines: [2] });
     expect(ev).toHaveFinding('BREAK_IN', { sets: [a, b], lines: [4] });
+    expect(ev.findings.find((f) => f.code === 'BREAK_IN')!.message).toContain('and the far party');
   });
 
   it('is not raised when the second set picks up the same line', () => {
@@ -198,6 +203,20 @@ describe('BREAK_IN', () => {
     );
     expect(ev).not.toHaveFinding('BREAK_IN');
     expect(ev.findings.filter((f) => f.code !== 'PRIVATE_LEAD_SHARED')).toEqual([]);
+  });
+
+  it('is not raised for a line that only has dial tone', () => {
+    const { plan, a, b } = hf();
+    const ev = evaluate(
+      plan,
+      operate(plan, [
+        { kind: 'press-key', set: a, key: 2 },
+        { kind: 'lift-handset', set: a },
+        { kind: 'lift-handset', set: b },
+      ]),
+    );
+    expect(ev).toHaveFinding('SET_HEARS_UNSELECTED_LINE', { sets: [b], lines: [2] });
+    expect(ev).not.toHaveFinding('BREAK_IN');
   });
 });
 

@@ -1,6 +1,7 @@
 /** Operating one installation: keys, hookswitch, hold, ringing and the exchange (common practice, no published source unless noted). */
 import { describe, expect, it } from 'vitest';
 import {
+  actionProblem,
   applyAction,
   COMPLETE_NUMBER_LENGTH,
   evaluate,
@@ -234,6 +235,10 @@ describe('hands-free add-on', () => {
     expect(ev.sets[0]).toMatchObject({ handsFreeOn: true, hears: [3] });
     const off = operate(plan, [{ kind: 'hands-free', set: set.id, on: false }], on);
     expect(evaluate(plan, off).lines[2].status).toBe('idle');
+    // The served set's hold key opens the add-on's A-lead control, so a hands-free call holds too.
+    const held = operate(plan, [{ kind: 'press-hold', set: set.id }], on);
+    expect(evaluate(plan, held).lines[2]).toMatchObject({ status: 'held', lamp: 'wink' });
+    expect(held.sets[set.id]).toMatchObject({ pressedKey: null, handsFreeOn: true });
   });
 });
 
@@ -248,5 +253,22 @@ describe('single-line set', () => {
     expect(ev.lines[0]).toMatchObject({ status: 'in-use', far: 'dial-tone', setsOn: [set.id] });
     expect(ev.sets[0].keys).toEqual([]);
     expect(ev.findings).toEqual([]);
+  });
+});
+
+describe('actionProblem', () => {
+  it('explains actions the plan cannot take and accepts the rest', () => {
+    const { plan, set } = oneSet();
+    expect(actionProblem(plan, { kind: 'lift-handset', set: 'ghost' })).toBe(
+      'There is no key set "ghost" in this plan.',
+    );
+    expect(actionProblem(plan, { kind: 'press-key', set, key: 9 })).toBe('Desk has no key 9.');
+    expect(actionProblem(plan, { kind: 'hands-free', set, on: true })).toBe('Desk has no hands-free add-on.');
+    expect(actionProblem(plan, { kind: 'ring-line', line: 8 })).toBe('The KSU has no line 8.');
+    expect(actionProblem(plan, { kind: 'intercom-call', station: 'st-40' })).toBe(
+      'The KSU has no intercom station "st-40".',
+    );
+    expect(actionProblem(plan, { kind: 'press-key', set, key: 6 })).toBeNull();
+    expect(actionProblem(plan, { kind: 'dial', set, digits: '21' })).toBeNull();
   });
 });

@@ -43,8 +43,14 @@ const setShape = fc.record({
 
 const groupShape: fc.Arbitrary<GroupShape> = fc.oneof(
   fc.record({ adapter: fc.constant(null), sets: fc.array(setShape, { minLength: 1, maxLength: 1 }) }),
-  fc.record({ adapter: fc.constant('bridging-adapter' as const), sets: fc.array(setShape, { minLength: 1, maxLength: 2 }) }),
-  fc.record({ adapter: fc.constant('bridging-adapter-4' as const), sets: fc.array(setShape, { minLength: 1, maxLength: 4 }) }),
+  fc.record({
+    adapter: fc.constant('bridging-adapter' as const),
+    sets: fc.array(setShape, { minLength: 1, maxLength: 2 }),
+  }),
+  fc.record({
+    adapter: fc.constant('bridging-adapter-4' as const),
+    sets: fc.array(setShape, { minLength: 1, maxLength: 4 }),
+  }),
 );
 
 /** Plans with 1–4 sets on up to three station cables. */
@@ -137,27 +143,30 @@ function renamedAndShuffled(plan: Plan, order: number[]): { plan: Plan; rename: 
 
 function keysBack(findings: Finding[], rename: Map<string, string>): string[] {
   const back = new Map([...rename].map(([a, b]) => [b, a]));
-  return findings
-    .map((f) => findingKey({ ...f, sets: f.sets.map((s) => back.get(s) ?? s) }))
-    .sort();
+  return findings.map((f) => findingKey({ ...f, sets: f.sets.map((s) => back.get(s) ?? s) })).sort();
 }
 
 describe('properties over generated plans', () => {
   it('findings do not depend on part names or the order parts are listed in', () => {
     // Engine design rule (pure function of the wiring), no published source.
     fc.assert(
-      fc.property(shapes(4), picks, fc.array(fc.nat(7), { minLength: 5, maxLength: 5 }), (shape, p, order) => {
-        const plan = buildPlan(shape);
-        const { plan: other, rename } = renamedAndShuffled(plan, order);
-        const state = stateFor(plan, p);
-        const otherState: SimState = {
-          ...state,
-          sets: Object.fromEntries(Object.entries(state.sets).map(([id, s]) => [rename.get(id) ?? id, s])),
-        };
-        const a = evaluate(plan, state).findings.map(findingKey).sort();
-        const b = keysBack(evaluate(other, otherState).findings, rename);
-        expect(b).toEqual(a);
-      }),
+      fc.property(
+        shapes(4),
+        picks,
+        fc.array(fc.nat(7), { minLength: 5, maxLength: 5 }),
+        (shape, p, order) => {
+          const plan = buildPlan(shape);
+          const { plan: other, rename } = renamedAndShuffled(plan, order);
+          const state = stateFor(plan, p);
+          const otherState: SimState = {
+            ...state,
+            sets: Object.fromEntries(Object.entries(state.sets).map(([id, s]) => [rename.get(id) ?? id, s])),
+          };
+          const a = evaluate(plan, state).findings.map(findingKey).sort();
+          const b = keysBack(evaluate(other, otherState).findings, rename);
+          expect(b).toEqual(a);
+        },
+      ),
       { numRuns: 60 },
     );
   });
@@ -167,8 +176,13 @@ describe('properties over generated plans', () => {
       fc.property(shapes(2), fc.array(fc.nat(7), { minLength: 5, maxLength: 5 }), (shape, order) => {
         const plan = buildPlan(shape);
         const { plan: other, rename } = renamedAndShuffled(plan, order);
-        const a = sweep(plan).findings.map((f) => findingKey(f.finding)).sort();
-        const b = keysBack(sweep(other).findings.map((f) => f.finding), rename);
+        const a = sweep(plan)
+          .findings.map((f) => findingKey(f.finding))
+          .sort();
+        const b = keysBack(
+          sweep(other).findings.map((f) => f.finding),
+          rename,
+        );
         expect(b).toEqual(a);
       }),
       { numRuns: 6 },
@@ -215,16 +229,15 @@ describe('properties over generated plans', () => {
     // A set by itself on a station cable, with no more KSU lines than line keys, is the installation the station
     // plan is made for: common practice, no published source. (A KSU with more lines puts lines 6–9 on pairs
     // 22–25, where a set wired for hands-free has its own leads: a real conflict, covered by the examples.)
-    const alone = setShape
-      .chain((set) => {
-        const keys = (getTemplate(set.template)?.keys ?? []).filter((k) => k.kind === 'line').length;
-        return fc.record({
-          lines: fc.integer({ min: 1, max: Math.max(1, keys) }),
-          stations: fc.integer({ min: 0, max: 3 }),
-          port: fc.integer({ min: 1, max: 4 }),
-          set: fc.constant(set),
-        });
+    const alone = setShape.chain((set) => {
+      const keys = (getTemplate(set.template)?.keys ?? []).filter((k) => k.kind === 'line').length;
+      return fc.record({
+        lines: fc.integer({ min: 1, max: Math.max(1, keys) }),
+        stations: fc.integer({ min: 0, max: 3 }),
+        port: fc.integer({ min: 1, max: 4 }),
+        set: fc.constant(set),
       });
+    });
     fc.assert(
       fc.property(alone, ({ lines, stations, port, set }) => {
         const b = planBuilder('Alone');

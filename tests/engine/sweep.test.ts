@@ -37,11 +37,19 @@ describe('sweep of the two-set hands-free plan (demo plan)', () => {
 
   it('finds the five faults of two hands-free sets bridged on one cable', () => {
     // Trade facts 3, 5, 6, 8 and the shared private leads: common practice, no published source.
-    for (const code of ['LINES_JOINED', 'BREAK_IN', 'LINE_LIT_UNATTENDED', 'INTERCOM_SOUNDS_SEVERAL', 'PRIVATE_LEAD_SHARED']) {
+    for (const code of [
+      'LINES_JOINED',
+      'BREAK_IN',
+      'LINE_LIT_UNATTENDED',
+      'INTERCOM_SOUNDS_SEVERAL',
+      'PRIVATE_LEAD_SHARED',
+    ]) {
       expect(codes(result), code).toContain(code);
     }
     expect(result.findings.map((f) => f.finding)).toHaveFinding('LINES_JOINED', { lines: [1, 5] });
-    expect(result.findings.map((f) => f.finding)).toHaveFinding('INTERCOM_SOUNDS_SEVERAL', { stations: ['st-21'] });
+    expect(result.findings.map((f) => f.finding)).toHaveFinding('INTERCOM_SOUNDS_SEVERAL', {
+      stations: ['st-21'],
+    });
   });
 
   it('reports each finding once, with a state that reproduces it', () => {
@@ -56,8 +64,9 @@ describe('sweep of the two-set hands-free plan (demo plan)', () => {
 
   it('gives the smallest reproducing state', () => {
     const size = (code: string, lines?: number[]) =>
-      result.findings.find((f) => f.finding.code === code && (!lines || f.finding.lines.join() === lines.join()))
-        ?.stateSize;
+      result.findings.find(
+        (f) => f.finding.code === code && (!lines || f.finding.lines.join() === lines.join()),
+      )?.stateSize;
     // The shared private leads are wiring: seen with every set idle. Common practice, no published source.
     expect(size('PRIVATE_LEAD_SHARED')).toBe(0);
     // Two latched line keys join their lines even with both handsets down (fact 5 wiring). Same source.

@@ -311,3 +311,20 @@ describe('fact 9: a six-key hands-free set and a ten-key set on one cable', () =
     }
   });
 });
+
+describe('fact 9, seen on the lamps', () => {
+  it('shorts the ten-key set’s line 9 lamp lead to the six-key set’s A1 on pair 25 until the pair is lifted', () => {
+    const use9 = (sets: [object, object]) => {
+      const { plan, b } = setsOnOneCable(['six-key-hf', 'ten-key'], { lines: 9, sets });
+      const state = operate(plan, [
+        { kind: 'press-key', set: b, key: 9 },
+        { kind: 'lift-handset', set: b },
+      ]);
+      return evaluate(plan, state)
+        .sets.find((s) => s.set === b)!
+        .keys.find((k) => k.index === 9)!.lamp;
+    };
+    expect(use9([{}, {}])).toBe('dark'); // lamp lead grounded: no lamp voltage, common practice
+    expect(use9([{ leadChanges: LIFT_LAST_THREE_PAIRS }, {}])).toBe('steady');
+  });
+});

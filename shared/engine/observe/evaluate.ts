@@ -42,6 +42,7 @@ const TONE_OF_PHASE: Partial<Record<FarPhase, ToneName>> = {
 };
 
 const TALKING: ReadonlySet<FarPhase> = new Set(['talking', 'answered']);
+const IN_CALL: ReadonlySet<FarPhase> = new Set(['dialling', 'ringback', 'talking', 'answered']);
 
 interface Context {
   nl: Netlist;
@@ -158,6 +159,7 @@ export function evaluateWithNets(
     if (e.owner < 0) continue;
     const ra = roots[d[e.a]];
     const rb = roots[d[e.b]];
+    if (ra === rb) continue; // a shorted load never sounds or lights
     if (e.kind === 'buzzer') {
       if (driven && ((ra === drivenT && rb === drivenR) || (ra === drivenR && rb === drivenT)))
         buzzerOn[e.owner] = true;
@@ -203,8 +205,8 @@ export function evaluateWithNets(
       keys[k] = {
         index: spec.index,
         label: spec.label,
-        lamp: el >= 0 ? lampCadence[el] : 'dark',
-        lines: el >= 0 ? lampLines[el] : [],
+        lamp: el >= 0 ? (lampCadence[el] ?? 'dark') : 'dark',
+        lines: el >= 0 ? (lampLines[el] ?? []) : [],
       };
     }
     sets[si] = {
@@ -337,21 +339,24 @@ function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean
         message: `${s.name} hears line ${line} ${keyText}${p ? describeVia(c, p) : ''}.`,
         path: p ? toHops(nl, p) : [],
       });
+      // A call in progress: a number dialled or a far party on the line, with another set on it or the far party talking.
+      const far = lines[i].far;
+      if (!IN_CALL.has(far)) continue;
       const others = nl.sets.filter(
         (o) =>
           o !== s && active[o.index] && selected[o.index].includes(line) && facts.hears[o.index].includes(i),
       );
-      if (others.length) {
-        out.push({
-          code: 'BREAK_IN',
-          severity: 'fault',
-          sets: [s.id, ...others.map((o) => o.id)],
-          lines: [line],
-          stations: [],
-          message: `${s.name} breaks into the call on line ${line} and hears ${others.map((o) => o.name).join(' and ')}${TALKING.has(lines[i].far) ? ' and the far party' : ''}${p ? describeVia(c, p) : ''}.`,
-          path: p ? toHops(nl, p) : [],
-        });
-      }
+      if (!others.length && !TALKING.has(far)) continue;
+      const parties = [...others.map((o) => o.name), ...(TALKING.has(far) ? ['the far party'] : [])];
+      out.push({
+        code: 'BREAK_IN',
+        severity: 'fault',
+        sets: [s.id, ...others.map((o) => o.id)],
+        lines: [line],
+        stations: [],
+        message: `${s.name} breaks into the call in progress on line ${line} and hears ${parties.join(' and ')}${p ? describeVia(c, p) : ''}.`,
+        path: p ? toHops(nl, p) : [],
+      });
     }
   }
 

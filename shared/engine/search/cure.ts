@@ -141,9 +141,14 @@ function partView(plan: Plan, id: string): PartView | null {
     id,
     name: doc.name,
     kind: set ? 'set' : 'add-on',
-    leads: tpl.leads.map((l, i) => ({ pair: at[i], conductor: l.conductor, scope: l.scope, designation: l.designation })),
+    leads: tpl.leads.map((l, i) => ({
+      pair: at[i],
+      conductor: l.conductor,
+      scope: l.scope,
+      designation: l.designation,
+    })),
     hasAddOn: set ? plan.addOns.some((a) => a.serves === id) : false,
-    servesName: addOn ? plan.sets.find((s) => s.id === addOn.serves)?.name ?? addOn.serves : undefined,
+    servesName: addOn ? (plan.sets.find((s) => s.id === addOn.serves)?.name ?? addOn.serves) : undefined,
   };
 }
 
@@ -208,7 +213,15 @@ function liftCandidates(plan: Plan, partId: string, pair: number): Candidate[] {
   const { cost, rank } = liftCost(plan, view, pair);
   if (!liftBreaksRequired(plan, view, here)) {
     return [
-      { id: `${partId}/lift/${pair}`, part: partId, pair, kind: 'lift', change: { kind: 'lift', pair, conductor: 'both' }, cost, rank },
+      {
+        id: `${partId}/lift/${pair}`,
+        part: partId,
+        pair,
+        kind: 'lift',
+        change: { kind: 'lift', pair, conductor: 'both' },
+        cost,
+        rank,
+      },
     ];
   }
   if (here.length < 2) return [];
@@ -233,7 +246,9 @@ function moveCandidates(plan: Plan, setId: string, ports: number[]): Candidate[]
   const view = partView(plan, setId);
   const port = ports[setIndex];
   if (!view || setIndex < 0 || port < 1) return [];
-  const fromPairs = [...new Set(view.leads.filter((l) => l.scope === 'station' && l.pair !== null).map((l) => l.pair!))];
+  const fromPairs = [
+    ...new Set(view.leads.filter((l) => l.scope === 'station' && l.pair !== null).map((l) => l.pair!)),
+  ];
   if (fromPairs.length === 0) return [];
   // Spare: no lead of any set or add-on on this station port uses it, and the KSU puts nothing on it there.
   const used = new Set<number>();
@@ -244,8 +259,11 @@ function moveCandidates(plan: Plan, setId: string, ports: number[]): Candidate[]
       for (const l of partView(plan, a.id)?.leads ?? []) if (l.pair !== null) used.add(l.pair);
     }
   });
-  for (const x of plan.ksu.crossConnect ?? standardCrossConnect(plan.ksu)) if (x.port === port) used.add(x.pair);
-  const assignedElsewhere = new Set(plan.sets.filter((s) => s.id !== setId && s.station).map((s) => s.station));
+  for (const x of plan.ksu.crossConnect ?? standardCrossConnect(plan.ksu))
+    if (x.port === port) used.add(x.pair);
+  const assignedElsewhere = new Set(
+    plan.sets.filter((s) => s.id !== setId && s.station).map((s) => s.station),
+  );
   const own = plan.sets[setIndex].station;
   const stations = plan.ksu.stations
     .map((s) => s.id)
@@ -372,7 +390,8 @@ export function cure(plan: Plan, opts: CureOptions = {}): CureResult {
   const first = sweep(plan, sweepOpts);
   const before = first.findings.map((f) => f.finding);
   const baseFailures = checkRequired(plan);
-  let exhaustive = first.strategy === 'exhaustive' && first.complete && plan.sets.length <= EXHAUSTIVE_CURE_SETS;
+  let exhaustive =
+    first.strategy === 'exhaustive' && first.complete && plan.sets.length <= EXHAUSTIVE_CURE_SETS;
 
   if (before.length === 0 && baseFailures.length === 0) {
     return {
@@ -412,14 +431,21 @@ export function cure(plan: Plan, opts: CureOptions = {}): CureResult {
       return { ...pick(found.map((finding) => ({ finding }))), after: found, failures: [] };
     }
     const failures = checkRequired(trial.plan);
-    if (failures.length > 0) return { ...pick(failures.map((failure) => ({ failure }))), after: [], failures };
+    if (failures.length > 0)
+      return { ...pick(failures.map((failure) => ({ failure }))), after: [], failures };
     const full = sweep(trial.plan, sweepOpts);
     if (!(full.strategy === 'exhaustive' && full.complete)) exhaustive = false;
     if (full.findings.length > 0) {
       probes.unshift(...probesOf(full.findings));
       const worst = full.findings[0];
-      const here = full.findings.filter((f) => f.stateSize === worst.stateSize && f.actions.length === worst.actions.length);
-      return { ...pick(here.map((f) => ({ finding: f.finding }))), after: full.findings.map((f) => f.finding), failures: [] };
+      const here = full.findings.filter(
+        (f) => f.stateSize === worst.stateSize && f.actions.length === worst.actions.length,
+      );
+      return {
+        ...pick(here.map((f) => ({ finding: f.finding }))),
+        after: full.findings.map((f) => f.finding),
+        failures: [],
+      };
     }
     return { problem: null, candidates: [], after: [], failures: [] };
   };

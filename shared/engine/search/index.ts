@@ -14,5 +14,12 @@ export {
   type SetMove,
   type SweepEvent,
 } from './sweep';
-export { cure, applyCure, EXHAUSTIVE_CURE_SETS, type CureChange, type CureOptions, type CureResult } from './cure';
+export {
+  cure,
+  applyCure,
+  EXHAUSTIVE_CURE_SETS,
+  type CureChange,
+  type CureOptions,
+  type CureResult,
+} from './cure';
 export { checkRequired, linesOfSet, type RequiredFailure } from './required';

@@ -3,7 +3,15 @@
  * Each failure says whether something is missing (a connection the function needs is absent) or extra (something
  * besides the wanted set or line is reached): lifting leads can only cure 'extra' failures, never 'missing' ones.
  */
-import { applyAction, evaluate, getTemplate, initialState, type Plan, type SimAction, type SimState } from './engine-port';
+import {
+  applyAction,
+  evaluate,
+  getTemplate,
+  initialState,
+  type Plan,
+  type SimAction,
+  type SimState,
+} from './engine-port';
 
 export interface RequiredFailure {
   function: 'allLinesOnEverySet' | 'intercomPerStation' | 'handsFreeSets';
@@ -70,7 +78,14 @@ function checkLines(plan: Plan, out: RequiredFailure[]): void {
           continue;
         }
       }
-      state = run(plan, [{ kind: 'hang-up', set: set.id }, { kind: 'release-keys', set: set.id }], state);
+      state = run(
+        plan,
+        [
+          { kind: 'hang-up', set: set.id },
+          { kind: 'release-keys', set: set.id },
+        ],
+        state,
+      );
       ev = evaluate(plan, state);
       const after = ev.lines.find((l) => l.line === line);
       if (after && (after.aClosed || after.status !== 'idle')) fail('extra', 'cannot release');

@@ -248,18 +248,15 @@ export function stationPortOfSets(plan: Plan): number[] {
   });
 }
 
-const keyCache = new WeakMap<object, string>();
+function sortedText(xs: readonly (string | number)[]): string {
+  if (xs.length < 2) return xs.length === 0 ? '' : String(xs[0]);
+  if (xs.length === 2) return xs[0] <= xs[1] ? `${xs[0]},${xs[1]}` : `${xs[1]},${xs[0]}`;
+  return [...xs].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0)).join(',');
+}
 
 /** Identity of a finding across states: code + sets + lines + stations, each in sorted order. */
 export function findingKey(f: Pick<Finding, 'code' | 'sets' | 'lines' | 'stations'>): string {
-  let key = keyCache.get(f);
-  if (key === undefined) {
-    const sorted = (xs: readonly string[]) => (xs.length < 2 ? xs.join(',') : [...xs].sort().join(','));
-    const lines = f.lines.length < 2 ? f.lines.join(',') : [...f.lines].sort((a, b) => a - b).join(',');
-    key = `${f.code}|${sorted(f.sets)}|${lines}|${sorted(f.stations)}`;
-    keyCache.set(f, key);
-  }
-  return key;
+  return `${f.code}|${sortedText(f.sets)}|${sortedText(f.lines)}|${sortedText(f.stations)}`;
 }
 
 function applyAll(plan: Plan, state: SimState, actions: readonly SimAction[]): SimState {
@@ -288,12 +285,28 @@ export function planSweep(plan: Plan, opts: Pick<SweepOptions, 'strategy' | 'eve
   const wanted = opts.strategy ?? 'auto';
   if (wanted === 'exhaustive' || (wanted === 'auto' && all * events.length <= EXHAUSTIVE_STATE_LIMIT)) {
     const maxActive = moves.length;
-    return { strategy: 'exhaustive', moves, events, maxActive, sameGroup: anyGroup, combinations: all, total: all * events.length };
+    return {
+      strategy: 'exhaustive',
+      moves,
+      events,
+      maxActive,
+      sameGroup: anyGroup,
+      combinations: all,
+      total: all * events.length,
+    };
   }
   const ports = stationPortOfSets(plan);
   const sameGroup = (i: number, j: number) => ports[i] === ports[j];
   const reduced = countCombinations(moves, 2, sameGroup);
-  return { strategy: 'reduced', moves, events, maxActive: 2, sameGroup, combinations: reduced, total: reduced * events.length };
+  return {
+    strategy: 'reduced',
+    moves,
+    events,
+    maxActive: 2,
+    sameGroup,
+    combinations: reduced,
+    total: reduced * events.length,
+  };
 }
 
 /**
@@ -320,58 +333,44 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
   const planTotal = planned.combinations * openings.length;
   const total = Math.min(planTotal, limit);
 
-  const best = new Map<string, SweptFinding>();
+  // Per finding key: the smallest state so far, as the opening and the combination that make it.
+  const best = new Map<string, { finding: Finding; size: number; opening: number; combo: number[] }>();
   let visited = 0;
   let stopped = false;
-
-  const record = (
-    findings: Finding[],
-    size: number,
-    event: SweepEvent,
-    actions: () => SimAction[],
-    state: SimState | null,
-  ) => {
-    for (const finding of findings) {
-      const key = findingKey(finding);
-      const known = best.get(key);
-      if (known && known.stateSize <= size) continue;
-      best.set(key, { finding, state: state ?? start, stateSize: size, actions: actions(), event });
-    }
-  };
+  const setIds = plan.sets.map((s) => s.id);
+  const comboActions = (combo: number[]): SimAction[] =>
+    combo.flatMap((m, i) => (m === 0 ? [] : moveActions(setIds[i], moves[i][m])));
 
   outer: for (const combo of combinations(moves, planned.maxActive, planned.sameGroup)) {
     let comboSize = 0;
-    const comboActions: SimAction[] = [];
     const sets: SimState['sets'] = {};
     for (let i = 0; i < combo.length; i++) {
       const m = moves[i][combo[i]];
-      sets[plan.sets[i].id] = { offHook: m.offHook, pressedKey: m.key, handsFreeOn: m.handsFree };
-      if (combo[i] === 0) continue;
+      sets[setIds[i]] = { offHook: m.offHook, pressedKey: m.key, handsFreeOn: m.handsFree };
       comboSize += moveSize(m);
-      comboActions.push(...moveActions(plan.sets[i].id, m));
     }
     // The sets' positions fix every contact, so the nets are solved once for all events.
     const nets = opts.exact ? null : computeNets(plan, { ...start, sets });
-    for (const opening of openings) {
+    const actions = opts.exact ? comboActions(combo) : null;
+    for (let o = 0; o < openings.length; o++) {
       if (visited >= limit || (visited % 64 === 0 && opts.shouldStop?.())) {
         stopped = true;
         break outer;
       }
-      let evaluation;
-      let state: SimState | null = null;
-      if (nets) {
-        // Moving from idle only closes contacts, so no line changes circuit on the way: the opening's line
-        // states with the sets in place show the same findings as the settled state (checked by the tests
-        // against exact mode). The kept states are replayed exactly below.
-        evaluation = evaluateWithNets(plan, { ...opening.state, sets }, nets, { paths: false });
-      } else {
-        state = applyAll(plan, opening.state, comboActions);
-        evaluation = evaluate(plan, state, { paths: false });
-      }
+      const opening = openings[o];
+      // Moving from idle only closes contacts, so no line changes circuit on the way: the opening's line states
+      // with the sets in place show the same findings as the settled state (the tests check this against exact
+      // mode). The kept states are replayed exactly below.
+      const found = nets
+        ? evaluateWithNets(plan, { ...opening.state, sets }, nets, { paths: false }).findings
+        : evaluate(plan, applyAll(plan, opening.state, actions!), { paths: false }).findings;
       visited++;
-      if (evaluation.findings.length > 0) {
-        const actions = () => [...opening.actions, ...comboActions];
-        record(evaluation.findings, opening.size + comboSize, opening.event, actions, state);
+      const size = opening.size + comboSize;
+      for (let k = 0; k < found.length; k++) {
+        const key = findingKey(found[k]);
+        const known = best.get(key);
+        if (known === undefined || known.size > size)
+          best.set(key, { finding: found[k], size, opening: o, combo });
       }
       if (visited % 256 === 0) opts.onProgress?.(visited, total);
     }
@@ -379,12 +378,21 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
   opts.onProgress?.(visited, total);
 
   // The kept states, reached by their actions, evaluated once more in full for paths and sentences.
+  const kept: SweptFinding[] = [];
   for (const [key, entry] of best) {
-    entry.state = applyAll(plan, start, entry.actions);
-    const full = evaluate(plan, entry.state).findings.find((f) => findingKey(f) === key);
-    if (full) entry.finding = full;
+    const opening = openings[entry.opening];
+    const actions = [...opening.actions, ...comboActions(entry.combo)];
+    const state = applyAll(plan, start, actions);
+    const full = evaluate(plan, state).findings.find((f) => findingKey(f) === key);
+    kept.push({
+      finding: full ?? entry.finding,
+      state,
+      stateSize: entry.size,
+      actions,
+      event: opening.event,
+    });
   }
-  const findings = [...best.values()].sort(
+  const findings = kept.sort(
     (a, b) => a.stateSize - b.stateSize || findingKey(a.finding).localeCompare(findingKey(b.finding)),
   );
   return {

@@ -376,7 +376,9 @@ const handsFreeAddOn: PartTemplate = {
     { a: 'HT', b: 'CT', when: 'handsFreeOn', label: 'On/off switch, talk tip' },
     { a: 'HR', b: 'CR', when: 'handsFreeOn', label: 'On/off switch, talk ring' },
     { a: 'MU', b: 'MR', when: 'handsFreeOn', label: 'On/off switch, handset mute' },
-    { a: 'AC', b: 'A1', when: 'handsFreeOn', label: 'On/off switch, A-lead control' },
+    { a: 'AC', b: 'AX', when: 'handsFreeOn', label: 'On/off switch, A-lead control' },
+    // The served set's hold key opens the control loop, so a hands-free call can be held like a handset call.
+    { a: 'AX', b: 'A1', when: 'notHoldPressed', label: 'A-lead control, opened by the served set’s hold key' },
   ],
 };
 

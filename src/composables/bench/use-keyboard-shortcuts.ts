@@ -37,9 +37,9 @@ export function isTypingTarget(target: EventTarget | null): boolean {
 }
 
 /** Which handler a key press asks for, or null. Kept apart from the DOM so it can be tested directly. */
-export function shortcutFor(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>):
-  | keyof ShortcutHandlers
-  | null {
+export function shortcutFor(
+  e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>,
+): keyof ShortcutHandlers | null {
   const mod = e.ctrlKey || e.metaKey;
   const key = e.key.toLowerCase();
   if (mod && !e.altKey) {

@@ -56,7 +56,9 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
     // A plain copy: the document is a shallowRef of frozen-ish objects and must cross the worker boundary.
     const payload = JSON.parse(JSON.stringify(plan)) as Plan;
     const request: SweepRequest =
-      job === 'sweep' ? { type: 'sweep', id: currentId, plan: payload } : { type: 'cure', id: currentId, plan: payload };
+      job === 'sweep'
+        ? { type: 'sweep', id: currentId, plan: payload }
+        : { type: 'cure', id: currentId, plan: payload };
     try {
       ensureWorker().postMessage(request);
     } catch (err) {
@@ -100,5 +102,8 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
 }
 
 function defaultWorker(): Worker {
-  return new Worker(new URL('../../workers/sweep.worker.ts', import.meta.url), { type: 'module', name: 'sweep' });
+  return new Worker(new URL('../../workers/sweep.worker.ts', import.meta.url), {
+    type: 'module',
+    name: 'sweep',
+  });
 }

@@ -19,8 +19,22 @@ export function twoSetPlan(): Plan {
       position: { x: 0, y: 0 },
     },
     sets: [
-      { id: 'front', name: 'Front desk', template: 'six-key', station: 'st-front', ringerLines: [1], position: { x: 600, y: 0 } },
-      { id: 'back', name: 'Back room', template: 'six-key', station: 'st-back', ringerLines: [1], position: { x: 600, y: 300 } },
+      {
+        id: 'front',
+        name: 'Front desk',
+        template: 'six-key',
+        station: 'st-front',
+        ringerLines: [1],
+        position: { x: 600, y: 0 },
+      },
+      {
+        id: 'back',
+        name: 'Back room',
+        template: 'six-key',
+        station: 'st-back',
+        ringerLines: [1],
+        position: { x: 600, y: 300 },
+      },
     ],
     adapters: [{ id: 'bridge', name: 'Bridge', template: 'bridging-adapter', position: { x: 300, y: 0 } }],
     cables: [

@@ -3,7 +3,10 @@ import { cadenceCss } from '@/components/bench/nodes/lamp-cadence';
 import { shortcutFor } from '@/composables/bench/use-keyboard-shortcuts';
 import { toneIsOn } from '@/composables/bench/use-handset-audio';
 
-const key = (k: string, mods: Partial<{ ctrlKey: boolean; shiftKey: boolean; metaKey: boolean; altKey: boolean }> = {}) => ({
+const key = (
+  k: string,
+  mods: Partial<{ ctrlKey: boolean; shiftKey: boolean; metaKey: boolean; altKey: boolean }> = {},
+) => ({
   key: k,
   ctrlKey: false,
   metaKey: false,

@@ -38,7 +38,7 @@ describe('KeySetNode', () => {
     for (const [i, key] of lineKeys.entries()) {
       expect(key.attributes('aria-label')).toBe(`Line ${i + 1} key, lamp dark`);
       // All sets on hook and no ringing: every lamp is dark (common practice, no published source).
-      expect(key.text()).toContain('dark');
+      expect(wrapper.get(`[data-testid="lamp-front-${i + 1}"]`).text()).toBe('dark');
     }
     expect(keys[5].attributes('aria-label')).toBe('Hold key');
   });
@@ -73,6 +73,7 @@ describe('KeySetNode', () => {
     // A line in use lights its lamp steady on every set bridged to it (common practice, no published source).
     expect(key.attributes('aria-label')).toBe('Line 1 key, lamp steady');
     expect(key.find('[data-cadence="steady"]').exists()).toBe(true);
+    expect(wrapper.get('[data-testid="lamp-back-1"]').text()).toBe('steady');
     expect(wrapper.get('[data-testid="key-back-2"]').attributes('aria-label')).toBe('Line 2 key, lamp dark');
   });
 });

@@ -48,7 +48,9 @@ describe('LeadTable', () => {
     const wrapper = mount(LeadTable, { props: { partId: 'back' } });
     // Pair 17 is spare on the six-key set (its template description: "Pairs 17 and 19–25 are spare").
     await wrapper.get('[data-testid="lead-move-18"]').setValue('17');
-    expect(store.plan?.sets.find((s) => s.id === 'back')?.leadChanges).toEqual([{ kind: 'move', pair: 18, toPair: 17 }]);
+    expect(store.plan?.sets.find((s) => s.id === 'back')?.leadChanges).toEqual([
+      { kind: 'move', pair: 18, toPair: 17 },
+    ]);
     expect(wrapper.get('[data-testid="lead-state-18"]').text()).toBe('moved to pair 17');
     expect(wrapper.get('[data-testid="lead-row-17"]').text()).toContain('carries the leads of pair 18');
   });

@@ -66,7 +66,12 @@ function placed(pos: { x: number; y: number } | undefined, index: number, column
 
 export function planToNodes(plan: Plan): BenchFlowNode[] {
   const nodes: BenchFlowNode[] = [
-    { id: plan.ksu.id, type: 'ksu', position: placed(plan.ksu.position, 0, 0), data: { partId: plan.ksu.id } },
+    {
+      id: plan.ksu.id,
+      type: 'ksu',
+      position: placed(plan.ksu.position, 0, 0),
+      data: { partId: plan.ksu.id },
+    },
   ];
   plan.adapters.forEach((a, i) =>
     nodes.push({ id: a.id, type: 'adapter', position: placed(a.position, i, 1), data: { partId: a.id } }),
