@@ -51,6 +51,7 @@ export {
 export {
   evaluate,
   evaluateWithNets,
+  evaluateFindings,
   computeNets,
   type EvaluateOptions,
   type StateNets,

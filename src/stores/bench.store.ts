@@ -149,6 +149,19 @@ export const useBenchStore = defineStore('bench', () => {
     selectedFindingKey.value = null;
   }
 
+  /** Forget the open plan (another plan is about to be opened). */
+  function unload() {
+    planId.value = null;
+    plan.value = null;
+    sim.value = null;
+    baseUpdatedAt.value = undefined;
+    past.value = [];
+    future.value = [];
+    revision.value = 0;
+    selectedPartId.value = null;
+    selectedFindingKey.value = null;
+  }
+
   function markSaved(updatedAt: string) {
     baseUpdatedAt.value = updatedAt;
   }
@@ -560,6 +573,7 @@ export const useBenchStore = defineStore('bench', () => {
     undoLabel,
     redoLabel,
     load,
+    unload,
     markSaved,
     commit,
     undo,

@@ -2,7 +2,12 @@
  * Engine benchmark (npm run bench): not a test. Prints a table (median, p95, ops/s, ratio to the floor) and PASS or
  * MISS for each speed target on this machine. The floor is a bare union-find over the same netlist from scratch:
  * every wire and every contact closed in the state, no precomputed static components, no observations.
+ *
+ * Each sample records wall time and this process's CPU time. Targets are judged on the CPU-time median, so other
+ * work on a shared machine does not count against the engine; the wall-time median is printed beside it with the
+ * load average.
  */
+import { loadavg } from 'node:os';
 import {
   createMech,
   cure,
@@ -19,11 +24,19 @@ import { busyState, examplePlan, largePlan, setsOnOneAdapter } from './bench-pla
 
 interface Row {
   name: string;
+  /** CPU-time median and 95th percentile, ms per call. */
   median: number;
   p95: number;
+  /** Wall-time median, ms per call. */
+  wall: number;
   opsPerSecond: number;
   floor?: string;
 }
+
+const cpuMs = (since: NodeJS.CpuUsage) => {
+  const d = process.cpuUsage(since);
+  return (d.user + d.system) / 1000;
+};
 
 /** Times fn: warm-up runs first, then samples until both minSamples and minMs are reached. */
 function measure(
@@ -38,17 +51,22 @@ function measure(
   do fn();
   while (performance.now() < warmUntil);
   const samples: number[] = [];
+  const walls: number[] = [];
   const start = performance.now();
   while (samples.length < minSamples || performance.now() - start < minMs) {
     const t = performance.now();
+    const c = process.cpuUsage();
     for (let i = 0; i < batch; i++) fn();
-    samples.push((performance.now() - t) / batch);
+    samples.push(cpuMs(c) / batch);
+    walls.push((performance.now() - t) / batch);
     if (samples.length > 100_000) break;
   }
-  samples.sort((a, b) => a - b);
+  const sorted = (xs: number[]) => xs.sort((a, b) => a - b);
+  sorted(samples);
   const median = samples[Math.floor(samples.length / 2)];
   const p95 = samples[Math.min(samples.length - 1, Math.floor(samples.length * 0.95))];
-  const row: Row = { name, median, p95, opsPerSecond: 1000 / median };
+  const wall = sorted(walls)[Math.floor(walls.length / 2)];
+  const row: Row = { name, median, p95, wall, opsPerSecond: 1000 / median };
   return row;
 }
 
@@ -95,10 +113,15 @@ function main(): void {
   const largeFloor = measure('floor: bare union-find, 40-set plan', floorFor(large, largeState), {
     batch: 10,
   });
-  const evalTwo = measure('evaluate, two-set plan', () => evaluate(twoSet, twoSetState), { batch: 20 });
+  const evalTwo = measure('evaluate, two-set plan', () => evaluate(twoSet, twoSetState), { batch: 200 });
   const evalLarge = measure('evaluate, 40-set plan (10 adapters)', () => evaluate(large, largeState), {
     batch: 2,
   });
+  const evalLargeNoPaths = measure(
+    'evaluate, 40-set plan, paths off',
+    () => evaluate(large, largeState, { paths: false }),
+    { batch: 5 },
+  );
   const sweepTwo = measure('exhaustive sweep, two sets', () => sweep(twoSet), { minSamples: 5, minMs: 2000 });
   const sweepThree = measure('exhaustive sweep, three sets', () => sweep(threeSets), {
     minSamples: 5,
@@ -112,20 +135,35 @@ function main(): void {
 
   evalTwo.floor = `${(evalTwo.median / twoFloor.median).toFixed(2)}×`;
   evalLarge.floor = `${(evalLarge.median / largeFloor.median).toFixed(2)}×`;
-  const rows: Row[] = [twoFloor, largeFloor, evalTwo, evalLarge, sweepTwo, sweepThree, cureTwo];
+  evalLargeNoPaths.floor = `${(evalLargeNoPaths.median / largeFloor.median).toFixed(2)}×`;
+  const rows: Row[] = [
+    twoFloor,
+    largeFloor,
+    evalTwo,
+    evalLarge,
+    evalLargeNoPaths,
+    sweepTwo,
+    sweepThree,
+    cureTwo,
+  ];
 
-  console.log(`Leadbench engine benchmark — node ${process.version}, ${new Date().toISOString()}`);
+  const load = loadavg().map((x) => x.toFixed(2));
+  console.log(
+    `Leadbench engine benchmark — node ${process.version}, ${new Date().toISOString()}, load average ${load.join(' ')}`,
+  );
   console.table(
     rows.map((r) => ({
       case: r.name,
-      median: ms(r.median),
-      p95: ms(r.p95),
+      'median (cpu)': ms(r.median),
+      'p95 (cpu)': ms(r.p95),
+      'median (wall)': ms(r.wall),
       'ops/s': r.opsPerSecond >= 100 ? Math.round(r.opsPerSecond) : Number(r.opsPerSecond.toFixed(1)),
       'vs floor': r.floor ?? '',
     })),
   );
   console.log(
-    `three-set sweep: ${statesThree.statesVisited} states; two-set cure: ${twoCure.changes.length} changes, ` +
+    `40-set plan: ${evaluate(large, largeState).findings.length} findings in the busy state; ` +
+      `three-set sweep: ${statesThree.statesVisited} states; two-set cure: ${twoCure.changes.length} changes, ` +
       `${twoCure.searched} change sets tried, proof ${twoCure.proofOfMinimality}`,
   );
 
@@ -140,7 +178,7 @@ function main(): void {
     const pass = value < limit;
     if (!pass) missed++;
     const shown = label.includes('×') ? `${value.toFixed(2)}×` : ms(value);
-    console.log(`${pass ? 'PASS' : 'MISS'}  ${label}  (measured ${shown})`);
+    console.log(`${pass ? 'PASS' : 'MISS'}  ${label}  (measured ${shown}, CPU time)`);
   }
   console.log(missed === 0 ? 'All targets met.' : `${missed} target(s) missed.`);
 }

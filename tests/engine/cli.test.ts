@@ -1,4 +1,8 @@
-/** The sim command line, run as a separate process exactly as `npm run -s sim -- …` runs it. */
+/**
+ * The sim command line, run as a separate process exactly as `npm run -s sim -- …` runs it.
+ * Exit statuses, output fields and message wording are our own CLI contract (shared/engine/examples/README.md);
+ * trade facts name their source beside the check.
+ */
 import { spawn } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -18,10 +22,13 @@ interface Run {
 }
 
 function sim(...args: string[]): Promise<Run> {
+  return run('server/cli/sim.ts', args);
+}
+
+/** Runs a script under tsx the way npm run does, collecting its output. */
+function run(script: string, args: string[]): Promise<Run> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', join(root, 'server/cli/sim.ts'), ...args], {
-      cwd: root,
-    });
+    const child = spawn(process.execPath, ['--import', 'tsx', join(root, script), ...args], { cwd: root });
     let stdout = '';
     let stderr = '';
     child.stdout.setEncoding('utf8').on('data', (d: string) => (stdout += d));
@@ -136,5 +143,11 @@ describe.concurrent('sim command line', { timeout: 60_000 }, () => {
     const missing = await sim(join(work, 'missing.json'));
     expect(missing.status).toBe(2);
     expect(missing.stderr).toMatch(/cannot read the plan file \(ENOENT\)/);
+  });
+
+  it('the committed JSON Schema of the plan is the one PlanSchema generates', async () => {
+    const r = await run('server/cli/write-json-schema.ts', ['--check']);
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
   });
 });

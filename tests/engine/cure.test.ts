@@ -111,6 +111,7 @@ describe('cure of the other example plans', () => {
   });
 
   it('a clean plan needs nothing', () => {
+    // One set alone on its cable, with no more lines than keys: common practice, no published source.
     const b = planBuilder();
     const ksu = b.ksu({ lines: 3, stations: 1 });
     b.cable(ksu.port(1), b.set('six-key', 'Alone', { station: ksu.stations[0] }).cord);

@@ -64,3 +64,69 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
 }
+
+/** A fresh address per call, so journeys that sign up never collide across runs or files. */
+export function uniqueEmail(prefix = 'journey'): string {
+  return `${prefix}-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 8)}@leadbench.test`;
+}
+
+export interface NewAccount {
+  displayName: string;
+  email: string;
+  password: string;
+}
+
+export function newAccount(prefix = 'journey', displayName = 'Journey Tester'): NewAccount {
+  return { displayName, email: uniqueEmail(prefix), password: 'copper-pair-lamp-relay' };
+}
+
+export async function signUp(page: Page, baseUrl: string, account: NewAccount): Promise<void> {
+  await page.goto(`${baseUrl}/sign-up`);
+  await page.getByLabel('Your name').fill(account.displayName);
+  await page.getByLabel('E-mail').fill(account.email);
+  await page.getByLabel('Password').fill(account.password);
+  await page.getByRole('button', { name: 'Create account' }).click();
+}
+
+/** Opens the account menu in the top bar and picks "Sign out"; resolves once the landing page shows. */
+export async function signOut(page: Page): Promise<void> {
+  await page.getByTestId('user-menu').click();
+  await page.getByText('Sign out', { exact: true }).click();
+  await page.getByRole('link', { name: 'Sign in' }).first().waitFor();
+}
+
+/** The labels of the top bar's main navigation, in order. */
+export async function navLabels(page: Page): Promise<string[]> {
+  const nav = page.getByRole('navigation', { name: 'Main' });
+  await nav.waitFor();
+  return (await nav.getByRole('link').allInnerTexts()).map((label) => label.trim());
+}
+
+/** Waits until the path (without query) is `path`; playwright's own URL wait, never a sleep. */
+export async function waitForPath(page: Page, path: string): Promise<void> {
+  await page.waitForURL((url) => url.pathname === path);
+}
+
+/** Uncaught errors thrown in the page, collected for a journey to assert there were none. */
+export function collectPageErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('pageerror', (error) => errors.push(error.message));
+  return errors;
+}
+
+/** Axe's serious and critical violations on the page as it stands, one readable line per element. */
+export async function seriousViolations(page: Page, exclude: string[] = []): Promise<string[]> {
+  const { AxeBuilder } = await import('@axe-core/playwright');
+  let builder = new AxeBuilder({ page });
+  for (const selector of exclude) builder = builder.exclude(selector);
+  const results = await builder.analyze();
+  return results.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .flatMap((v) =>
+      v.nodes.map(
+        (node) =>
+          `[${v.impact}] ${v.id}: ${v.help} at ${node.target.join(' ')} ${node.html.slice(0, 160)}` +
+          (node.failureSummary ? ` (${node.failureSummary.replace(/\s+/g, ' ').trim()})` : ''),
+      ),
+    );
+}

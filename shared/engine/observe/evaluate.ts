@@ -17,10 +17,9 @@ import type {
 import { computeFacts, isActive, selectedLines, type NetFacts } from './facts';
 import {
   crossingSentence,
-  findPath,
+  PathFinder,
   firstCrossing,
   firstUnitLeadSentence,
-  toHops,
   unitsAlong,
   type TerminalPath,
 } from './paths';
@@ -42,7 +41,6 @@ const TONE_OF_PHASE: Partial<Record<FarPhase, ToneName>> = {
 };
 
 const TALKING: ReadonlySet<FarPhase> = new Set(['talking', 'answered']);
-const IN_CALL: ReadonlySet<FarPhase> = new Set(['dialling', 'ringback', 'talking', 'answered']);
 
 interface Context {
   nl: Netlist;
@@ -102,18 +100,7 @@ export function evaluateWithNets(
   const { mech, facts } = nets;
   const layout = layoutOf(nl);
   const nLines = nl.lines.length;
-  const lineStates: (LineState | undefined)[] = new Array(nLines);
-  for (let i = 0; i < nLines; i++) {
-    const n = nl.lines[i].number;
-    let found: LineState | undefined;
-    for (const ls of state.lines) {
-      if (ls.line === n) {
-        found = ls;
-        break;
-      }
-    }
-    lineStates[i] = found;
-  }
+  const lineStates = lineStatesOf(nl, state);
   const c: Context = { nl, state, mech, facts, lineStates, paths: options.paths !== false };
 
   const statuses: LineStatus[] = new Array(nLines);
@@ -123,12 +110,7 @@ export function evaluateWithNets(
     statuses[i] = lineStatus(c, i);
     cadences[i] = lineCadence(statuses[i]);
     // Lines joined: same tip net or same ring net.
-    const joinedWith: number[] = [];
-    for (let j = 0; j < nLines; j++) {
-      if (i !== j && (facts.rootT[i] === facts.rootT[j] || facts.rootR[i] === facts.rootR[j])) {
-        joinedWith.push(nl.lines[j].number);
-      }
-    }
+    const joinedWith = joinedLines(nl, facts, i);
     const setsOn: string[] = [];
     for (const s of facts.setsOn[i]) setsOn.push(nl.sets[s].id);
     lines[i] = {
@@ -263,11 +245,80 @@ function layoutOf(nl: Netlist): Layout {
   return layout;
 }
 
-function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean[]): Finding[] {
+type LineFacts = Pick<LineObservation, 'line' | 'status' | 'aClosed' | 'far' | 'joinedWith'>;
+
+function lineStatesOf(nl: Netlist, state: SimState): (LineState | undefined)[] {
+  const out: (LineState | undefined)[] = new Array(nl.lines.length);
+  for (let i = 0; i < nl.lines.length; i++) {
+    const n = nl.lines[i].number;
+    out[i] = undefined;
+    for (const ls of state.lines) {
+      if (ls.line === n) {
+        out[i] = ls;
+        break;
+      }
+    }
+  }
+  return out;
+}
+
+function joinedLines(nl: Netlist, facts: NetFacts, i: number): number[] {
+  const joinedWith: number[] = [];
+  for (let j = 0; j < nl.lines.length; j++) {
+    if (i !== j && (facts.rootT[i] === facts.rootT[j] || facts.rootR[i] === facts.rootR[j])) {
+      joinedWith.push(nl.lines[j].number);
+    }
+  }
+  return joinedWith;
+}
+
+function buzzersOn(nl: Netlist, state: SimState, facts: NetFacts): boolean[] {
+  const on: boolean[] = new Array(nl.sets.length).fill(false);
+  const calling = state.intercom.calling;
+  const driven = calling ? nl.stations.find((st) => st.id === calling) : undefined;
+  if (!driven) return on;
+  const roots = facts.roots;
+  const d = nl.dense;
+  const t = roots[d[driven.t]];
+  const r = roots[d[driven.r]];
+  for (const e of nl.elements) {
+    if (e.kind !== 'buzzer' || e.owner < 0) continue;
+    const ra = roots[d[e.a]];
+    const rb = roots[d[e.b]];
+    if (ra !== rb && ((ra === t && rb === r) || (ra === r && rb === t))) on[e.owner] = true;
+  }
+  return on;
+}
+
+/**
+ * Findings only, without paths or observations: the sweep's hot path. Same codes, sets, lines, stations and
+ * messages (minus path-based wording) as evaluate(plan, state, { paths: false }).findings.
+ */
+export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): Finding[] {
+  const nl = getNetlist(plan);
+  const { mech, facts } = nets;
+  const lineStates = lineStatesOf(nl, state);
+  const c: Context = { nl, state, mech, facts, lineStates, paths: false };
+  const lines: LineFacts[] = new Array(nl.lines.length);
+  for (let i = 0; i < nl.lines.length; i++) {
+    lines[i] = {
+      line: nl.lines[i].number,
+      status: lineStatus(c, i),
+      aClosed: facts.aClosed[i],
+      far: lineStates[i]?.far.phase ?? 'idle',
+      joinedWith: joinedLines(nl, facts, i),
+    };
+  }
+  const dynamic = dynamicFindings(c, lines, buzzersOn(nl, state, facts));
+  const fixed = staticFindings(nl, false);
+  return fixed.length ? dynamic.concat(fixed) : dynamic;
+}
+
+function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[]): Finding[] {
   const { nl, mech, facts } = c;
   const out: Finding[] = [];
-  const path = (from: number, to: number): TerminalPath | null =>
-    c.paths ? findPath(nl, from, to, mech) : null;
+  const finder = c.paths ? new PathFinder(nl, mech, facts.roots) : null;
+  const path = (from: number, to: number): TerminalPath | null => (finder ? finder.path(from, to) : null);
   const nSets = nl.sets.length;
   const selected: number[][] = new Array(nSets);
   const active: boolean[] = new Array(nSets);
@@ -300,7 +351,7 @@ function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean
       lines: group,
       stations: [],
       message: `Lines ${lineList(group)} are joined${how}.`,
-      path: p ? toHops(nl, p) : [],
+      path: p && finder ? finder.hopsOf(p) : [],
     });
   });
 
@@ -319,7 +370,7 @@ function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean
         lines: heardNumbers,
         stations: [],
         message: `${s.name} hears lines ${lineList(heardNumbers)} at once${p ? describeVia(c, p) : ''}.`,
-        path: p ? toHops(nl, p) : [],
+        path: p && finder ? finder.hopsOf(p) : [],
       });
     }
     for (const i of heard) {
@@ -337,16 +388,15 @@ function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean
         lines: [line],
         stations: [],
         message: `${s.name} hears line ${line} ${keyText}${p ? describeVia(c, p) : ''}.`,
-        path: p ? toHops(nl, p) : [],
+        path: p && finder ? finder.hopsOf(p) : [],
       });
-      // A call in progress: a number dialled or a far party on the line, with another set on it or the far party talking.
+      // Another set is on that line through its own key: this set is listening in on its call.
       const far = lines[i].far;
-      if (!IN_CALL.has(far)) continue;
       const others = nl.sets.filter(
         (o) =>
           o !== s && active[o.index] && selected[o.index].includes(line) && facts.hears[o.index].includes(i),
       );
-      if (!others.length && !TALKING.has(far)) continue;
+      if (!others.length) continue;
       const parties = [...others.map((o) => o.name), ...(TALKING.has(far) ? ['the far party'] : [])];
       out.push({
         code: 'BREAK_IN',
@@ -354,8 +404,8 @@ function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean
         sets: [s.id, ...others.map((o) => o.id)],
         lines: [line],
         stations: [],
-        message: `${s.name} breaks into the call in progress on line ${line} and hears ${parties.join(' and ')}${p ? describeVia(c, p) : ''}.`,
-        path: p ? toHops(nl, p) : [],
+        message: `${s.name} breaks into the call on line ${line} and hears ${parties.join(' and ')}${p ? describeVia(c, p) : ''}.`,
+        path: p && finder ? finder.hopsOf(p) : [],
       });
     }
   }
@@ -384,7 +434,7 @@ function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean
       lines: [obs.line],
       stations: [],
       message: `Line ${obs.line} is lit with nobody on it: ${why}.`,
-      path: p ? toHops(nl, p) : [],
+      path: p && finder ? finder.hopsOf(p) : [],
     });
   }
 
@@ -394,7 +444,10 @@ function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean
   if (station) {
     const sounding = nl.sets.filter((s) => buzzerOn[s.index]);
     const extra = sounding.filter((s) => s.station !== station.id);
-    if (extra.length) {
+    // A lone unassigned set answering the only call it can hear is not a fault.
+    const misdirected =
+      extra.length > 0 && (sounding.length > 1 || extra.some((s) => s.station !== undefined));
+    if (misdirected) {
       const buzzer = nl.elements.find((e) => e.kind === 'buzzer' && e.owner === extra[0].index);
       const p = buzzer ? (path(station.t, buzzer.a) ?? path(station.t, buzzer.b)) : null;
       out.push({
@@ -403,8 +456,8 @@ function dynamicFindings(c: Context, lines: LineObservation[], buzzerOn: boolean
         sets: sounding.map((s) => s.id),
         lines: [],
         stations: [station.id],
-        message: `An intercom call to station ${station.code} buzzes ${sounding.map((s) => s.name).join(' and ')}${p ? describeBuzzerPair(c, p) : ''}.`,
-        path: p ? toHops(nl, p) : [],
+        message: intercomMessage(c, station.code, sounding, extra, p),
+        path: p && finder ? finder.hopsOf(p) : [],
       });
     }
   }
@@ -430,7 +483,23 @@ function describeVia(c: Context, p: TerminalPath): string {
   return lead ? `, through ${lead}` : '';
 }
 
-function describeBuzzerPair(c: Context, p: TerminalPath): string {
-  const pin = p.terms.map((t) => c.nl.terminals[t]).find((t) => t.pair !== undefined);
-  return pin?.pair ? `: their buzzers share pair ${pin.pair} (${pairColour(pin.pair).name})` : '';
+function intercomMessage(
+  c: Context,
+  code: string,
+  sounding: Netlist['sets'],
+  extra: Netlist['sets'],
+  p: TerminalPath | null,
+): string {
+  let text = `An intercom call to station ${code} buzzes ${sounding.map((s) => s.name).join(' and ')}`;
+  const elsewhere = extra.filter((s) => s.station !== undefined);
+  if (elsewhere.length) {
+    const codeOf = (id: string) => c.nl.stations.find((st) => st.id === id)?.code ?? id;
+    text += `, though ${elsewhere.map((s) => `${s.name} answers station ${codeOf(s.station!)}`).join(' and ')}`;
+  }
+  const pin = p ? p.terms.map((t) => c.nl.terminals[t]).find((t) => t.pair !== undefined) : undefined;
+  if (pin?.pair) {
+    const where = `pair ${pin.pair} (${pairColour(pin.pair).name})`;
+    text += sounding.length > 1 ? `: their buzzers share ${where}` : ` on ${where}`;
+  }
+  return `${text}.`;
 }

@@ -75,6 +75,123 @@ export function findPath(nl: Netlist, from: number, to: number, mech: Mech | nul
   return { terms: terms.reverse(), edges: edges.reverse() };
 }
 
+/**
+ * Paths in one state from a few sources to many targets: one breadth-first tree per source, kept for the
+ * evaluation (findings of one evaluation start from a handful of KSU terminals).
+ */
+export class PathFinder {
+  private readonly trees = new Map<number, Tree>();
+  private readonly paths = new Map<string, TerminalPath | null>();
+  private readonly hops = new Map<TerminalPath, Hop[]>();
+
+  /**
+   * roots: the state's dense-component roots (from computeFacts), so the search stays inside the source's net;
+   * null with mech null: wires only, inside the source's static component.
+   */
+  constructor(
+    private readonly nl: Netlist,
+    private readonly mech: Mech | null,
+    private readonly roots: Int32Array | null,
+  ) {}
+
+  path(from: number, to: number): TerminalPath | null {
+    const key = `${from}>${to}`;
+    if (this.paths.has(key)) return this.paths.get(key)!;
+    const found = this.trace(from, to);
+    this.paths.set(key, found);
+    return found;
+  }
+
+  /**
+   * One breadth-first tree per net, rooted at the first terminal asked for in it; a path between two terminals of
+   * the net runs up the tree from one to their lowest common ancestor and down to the other.
+   */
+  private trace(from: number, to: number): TerminalPath | null {
+    const net = this.netOf(from);
+    if (net !== this.netOf(to)) return null;
+    let tree = this.trees.get(net);
+    if (!tree) {
+      tree = newTree(this.nl.terminals.length, from);
+      this.trees.set(net, tree);
+    }
+    this.growUntil(tree, from, net);
+    this.growUntil(tree, to, net);
+    const { prev, prevEdge } = tree;
+    if (prev[from] === -1 || prev[to] === -1) return null;
+    const upFrom: number[] = [from];
+    for (let t = from; prev[t] !== t; t = prev[t]) upFrom.push(prev[t]);
+    const position = new Map(upFrom.map((t, i) => [t, i]));
+    const upTo: number[] = [to];
+    for (let t = to; !position.has(t); t = prev[t]) upTo.push(prev[t]);
+    const meet = position.get(upTo[upTo.length - 1])!;
+    const terms = upFrom.slice(0, meet + 1);
+    const edges: number[] = [];
+    for (let i = 0; i < meet; i++) edges.push(prevEdge[upFrom[i]]);
+    for (let i = upTo.length - 2; i >= 0; i--) {
+      terms.push(upTo[i]);
+      edges.push(prevEdge[upTo[i]]);
+    }
+    return { terms, edges };
+  }
+
+  private netOf(t: number): number {
+    return this.roots
+      ? this.nl.dense[t] < 0
+        ? -1 - t
+        : this.roots[this.nl.dense[t]]
+      : this.nl.staticRoot[t];
+  }
+
+  /** Hops of a path this finder returned; findings that share a path share one list. */
+  hopsOf(path: TerminalPath): Hop[] {
+    let hops = this.hops.get(path);
+    if (!hops) {
+      hops = toHops(this.nl, path);
+      this.hops.set(path, hops);
+    }
+    return hops;
+  }
+
+  /** Breadth-first, resumable: grow the tree only until the target is reached. */
+  private growUntil(tree: Tree, target: number, net: number): void {
+    const { nl, mech } = this;
+    const adj = adjacency(nl);
+    const { prev, prevEdge, queue } = tree;
+    const { dense, staticRoot } = nl;
+    const roots = this.roots;
+    while (prev[target] === -1 && tree.head < tree.tail) {
+      const t = queue[tree.head++];
+      for (let k = adj.offset[t]; k < adj.offset[t + 1]; k++) {
+        const next = adj.to[k];
+        if (prev[next] !== -1) continue;
+        // A path between two terminals never leaves their net.
+        if (roots ? dense[next] < 0 || roots[dense[next]] !== net : staticRoot[next] !== net) continue;
+        const e = nl.edges[adj.edge[k]];
+        if (e.kind === 'contact' && (!mech || !isContactClosed(nl.contacts[e.contact!], mech))) continue;
+        prev[next] = t;
+        prevEdge[next] = adj.edge[k];
+        queue[tree.tail++] = next;
+      }
+    }
+  }
+}
+
+interface Tree {
+  prev: Int32Array;
+  prevEdge: Int32Array;
+  queue: Int32Array;
+  head: number;
+  tail: number;
+}
+
+function newTree(n: number, from: number): Tree {
+  const prev = new Int32Array(n).fill(-1);
+  const queue = new Int32Array(n);
+  prev[from] = from;
+  queue[0] = from;
+  return { prev, prevEdge: new Int32Array(n).fill(-1), queue, head: 0, tail: 1 };
+}
+
 const KSU_LEAD_NAMES: Record<string, string> = { T: 'tip', R: 'ring', A: 'A-lead', L: 'lamp lead' };
 
 function portLabel(part: PartInfo, port: string): string {
@@ -82,7 +199,18 @@ function portLabel(part: PartInfo, port: string): string {
   return part.template?.ports.find((p) => p.name === port)?.label.toLowerCase() ?? port;
 }
 
+const textCache = new WeakMap<Netlist, (string | undefined)[]>();
+
 export function terminalText(nl: Netlist, term: number): string {
+  let texts = textCache.get(nl);
+  if (!texts) {
+    texts = [];
+    textCache.set(nl, texts);
+  }
+  return (texts[term] ??= describeTerminal(nl, term));
+}
+
+function describeTerminal(nl: Netlist, term: number): string {
   const t = nl.terminals[term];
   const part = nl.parts[t.part];
   if (t.pin !== undefined && t.pair !== undefined) {

@@ -2,10 +2,11 @@
  * Cure: the smallest set of lead changes that clears every finding of the sweep and keeps plan.required working.
  * Method: ./README.md.
  */
-import { applyLeadChanges } from '../model/netlist';
 import {
   applyAction,
+  applyLeadChanges,
   computeNets,
+  evaluateFindings,
   evaluateWithNets,
   getTemplate,
   initialState,
@@ -63,7 +64,7 @@ export const EXHAUSTIVE_CURE_SETS = 3;
 
 interface Candidate extends CureChange {
   id: string;
-  /** Pairs of the part this change touches (two changes on one pair of one part never combine). */
+  /** The pair of the part this change touches (two changes on one pair of one part never combine). */
   pair: number;
   /** Relative cost, for choosing between change sets of the same size. */
   rank: number;
@@ -86,7 +87,6 @@ interface Probe {
 // Applying changes
 
 function withChanges(plan: Plan, changes: readonly CureChange[]): Plan {
-  if (changes.length === 0) return plan;
   // A plan is plain JSON: a JSON round trip is its deep copy (and needs no DOM or Node global).
   const next = JSON.parse(JSON.stringify(plan)) as Plan;
   for (const ch of changes) {
@@ -125,8 +125,9 @@ interface PartView {
   name: string;
   kind: 'set' | 'add-on';
   leads: { pair: number | null; conductor: 'tip' | 'ring'; scope: string; designation: string }[];
-  /** For a set: add-ons serving it; for an add-on: the set it serves. */
+  /** For a set: whether an add-on serves it. */
   hasAddOn: boolean;
+  /** For an add-on: the name of the set it serves. */
   servesName?: string;
 }
 
@@ -304,26 +305,34 @@ function moveCandidates(plan: Plan, setId: string, ports: number[]): Candidate[]
 function candidatesFor(plan: Plan, problem: Problem, ports: number[]): Candidate[] {
   const out: Candidate[] = [];
   const isPart = (id: string) => plan.sets.some((s) => s.id === id) || plan.addOns.some((a) => a.id === id);
-  if ('finding' in problem) {
-    for (const hop of problem.finding.path) {
-      if (hop.pair === undefined || !isPart(hop.part)) continue;
-      out.push(...liftCandidates(plan, hop.part, hop.pair));
-    }
-    if (problem.finding.code === 'INTERCOM_SOUNDS_SEVERAL') {
-      for (const id of problem.finding.sets) out.push(...moveCandidates(plan, id, ports));
-    }
-  } else {
-    const sets = problem.failure.sets.length > 0 ? problem.failure.sets : plan.sets.map((s) => s.id);
-    for (const id of sets) {
-      if (problem.failure.function === 'intercomPerStation') out.push(...moveCandidates(plan, id, ports));
-      const parts = [id, ...plan.addOns.filter((a) => a.serves === id).map((a) => a.id)];
-      for (const part of parts) {
-        const view = partView(plan, part);
-        for (const pair of new Set(view?.leads.map((l) => l.pair) ?? [])) {
+  const everyLeadOf = (setIds: string[]) => {
+    for (const id of setIds) {
+      for (const part of [id, ...plan.addOns.filter((a) => a.serves === id).map((a) => a.id)]) {
+        for (const pair of new Set(partView(plan, part)?.leads.map((l) => l.pair) ?? [])) {
           if (pair !== null) out.push(...liftCandidates(plan, part, pair));
         }
       }
     }
+  };
+  if ('finding' in problem) {
+    const { finding } = problem;
+    for (const hop of finding.path) {
+      if (hop.pair === undefined || !isPart(hop.part)) continue;
+      out.push(...liftCandidates(plan, hop.part, hop.pair));
+    }
+    // No conductor path to follow (e.g. a line held aside): any lead of the sets involved, or of every set.
+    if (finding.path.length === 0)
+      everyLeadOf(finding.sets.length > 0 ? finding.sets : plan.sets.map((s) => s.id));
+    if (finding.code === 'INTERCOM_SOUNDS_SEVERAL') {
+      for (const id of finding.sets) out.push(...moveCandidates(plan, id, ports));
+    }
+  } else {
+    const sets = problem.failure.sets.length > 0 ? problem.failure.sets : plan.sets.map((s) => s.id);
+    if (problem.failure.function === 'intercomPerStation') {
+      for (const id of sets) out.push(...moveCandidates(plan, id, ports));
+    }
+    // Lifting only takes connections away: it can cure something extra, never something missing.
+    if (problem.failure.kind === 'extra') everyLeadOf(sets);
   }
   const seen = new Set<string>();
   return out.filter((c) => !seen.has(c.id) && seen.add(c.id));
@@ -372,7 +381,10 @@ class Trial {
       this.openings.set(key, opening);
     }
     const state = { ...opening, sets: probe.sets };
-    return evaluateWithNets(this.plan, state, computeNets(this.plan, state), { paths }).findings;
+    const nets = computeNets(this.plan, state);
+    return paths
+      ? evaluateWithNets(this.plan, state, nets).findings
+      : evaluateFindings(this.plan, state, nets);
   }
 }
 

@@ -3,9 +3,10 @@
  * Imports point at the core's modules (not ../index) so that index.ts can re-export search/ without a cycle.
  */
 export { applyAction, initialState } from '../sim/actions';
-export { evaluate, evaluateWithNets, computeNets } from '../observe/evaluate';
+export { evaluate, evaluateWithNets, evaluateFindings, computeNets } from '../observe/evaluate';
 export { getTemplate, TEMPLATES } from '../templates/part-templates';
 export { standardCrossConnect, effectiveCrossConnect } from '../model/cross-connect';
+export { applyLeadChanges } from '../model/netlist';
 export type { Plan, LeadChange, CrossConnect, KeySet, AddOn } from '../document/plan.schema';
 export type { SimState, SimAction, SetState } from '../sim/state.schema';
 export type { Evaluation, Finding, FindingCode, Hop } from '../observe/evaluation.types';

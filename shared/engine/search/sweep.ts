@@ -6,7 +6,7 @@ import {
   applyAction,
   computeNets,
   evaluate,
-  evaluateWithNets,
+  evaluateFindings,
   getTemplate,
   initialState,
   type Finding,
@@ -128,6 +128,7 @@ function holdActions(plan: Plan, line: number): SimAction[] | null {
   return null;
 }
 
+/** The actions that make an event happen, from the initial state. */
 export function eventActions(plan: Plan, e: SweepEvent): SimAction[] {
   const out: SimAction[] = [];
   if (e.held !== null) out.push(...(holdActions(plan, e.held) ?? []));
@@ -204,10 +205,11 @@ function countCombinations(
   sameGroup: (i: number, j: number) => boolean,
 ): number {
   if (maxActive >= moves.length) return moves.reduce((p, ms) => p * ms.length, 1);
-  // maxActive is 2 here: none, one set, or two sets of one group.
+  // maxActive is 1 or 2 here: none, one set, or two sets of one group.
   let total = 1;
   for (let i = 0; i < moves.length; i++) {
     total += moves[i].length - 1;
+    if (maxActive < 2) continue;
     for (let j = i + 1; j < moves.length; j++) {
       if (sameGroup(i, j)) total += (moves[i].length - 1) * (moves[j].length - 1);
     }
@@ -271,8 +273,10 @@ interface Planned {
   events: SweepEvent[];
   maxActive: number;
   sameGroup: (i: number, j: number) => boolean;
-  /** Mechanical combinations to visit; each is visited once per event. */
+  /** Mechanical combinations to visit. */
   combinations: number;
+  /** Of those, the ones visited with no KSU event only (two sets active in the reduced strategy). */
+  withoutEvents: number;
   total: number;
 }
 
@@ -292,20 +296,23 @@ export function planSweep(plan: Plan, opts: Pick<SweepOptions, 'strategy' | 'eve
       maxActive,
       sameGroup: anyGroup,
       combinations: all,
+      withoutEvents: 0,
       total: all * events.length,
     };
   }
   const ports = stationPortOfSets(plan);
   const sameGroup = (i: number, j: number) => ports[i] === ports[j];
-  const reduced = countCombinations(moves, 2, sameGroup);
+  const upToOne = countCombinations(moves, 1, sameGroup);
+  const pairs = countCombinations(moves, 2, sameGroup) - upToOne;
   return {
     strategy: 'reduced',
     moves,
     events,
     maxActive: 2,
     sameGroup,
-    combinations: reduced,
-    total: reduced * events.length,
+    combinations: upToOne + pairs,
+    withoutEvents: pairs,
+    total: upToOne * events.length + pairs,
   };
 }
 
@@ -330,7 +337,8 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
     seenOpenings.add(key);
     openings.push({ event, actions, state, size: eventSize(event) });
   }
-  const planTotal = planned.combinations * openings.length;
+  const withEvents = planned.combinations - planned.withoutEvents;
+  const planTotal = withEvents * openings.length + planned.withoutEvents;
   const total = Math.min(planTotal, limit);
 
   // Per finding key: the smallest state so far, as the opening and the combination that make it.
@@ -338,21 +346,29 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
   let visited = 0;
   let stopped = false;
   const setIds = plan.sets.map((s) => s.id);
+  // Findings the core hands back as the same objects in every state (the wiring ones): their keys once.
+  const idle = evaluate(plan, start, { paths: false }).findings;
+  const again = new Set(evaluate(plan, start, { paths: false }).findings);
+  const knownKeys = new Map(idle.filter((f) => again.has(f)).map((f) => [f, findingKey(f)]));
   const comboActions = (combo: number[]): SimAction[] =>
     combo.flatMap((m, i) => (m === 0 ? [] : moveActions(setIds[i], moves[i][m])));
 
   outer: for (const combo of combinations(moves, planned.maxActive, planned.sameGroup)) {
     let comboSize = 0;
+    let active = 0;
     const sets: SimState['sets'] = {};
     for (let i = 0; i < combo.length; i++) {
       const m = moves[i][combo[i]];
       sets[setIds[i]] = { offHook: m.offHook, pressedKey: m.key, handsFreeOn: m.handsFree };
       comboSize += moveSize(m);
+      if (combo[i] !== 0) active++;
     }
+    // Reduced strategy: two sets together are visited without KSU events (see README).
+    const openingCount = planned.strategy === 'reduced' && active > 1 ? 1 : openings.length;
     // The sets' positions fix every contact, so the nets are solved once for all events.
     const nets = opts.exact ? null : computeNets(plan, { ...start, sets });
     const actions = opts.exact ? comboActions(combo) : null;
-    for (let o = 0; o < openings.length; o++) {
+    for (let o = 0; o < openingCount; o++) {
       if (visited >= limit || (visited % 64 === 0 && opts.shouldStop?.())) {
         stopped = true;
         break outer;
@@ -362,12 +378,12 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
       // with the sets in place show the same findings as the settled state (the tests check this against exact
       // mode). The kept states are replayed exactly below.
       const found = nets
-        ? evaluateWithNets(plan, { ...opening.state, sets }, nets, { paths: false }).findings
+        ? evaluateFindings(plan, { ...opening.state, sets }, nets)
         : evaluate(plan, applyAll(plan, opening.state, actions!), { paths: false }).findings;
       visited++;
       const size = opening.size + comboSize;
       for (let k = 0; k < found.length; k++) {
-        const key = findingKey(found[k]);
+        const key = knownKeys.get(found[k]) ?? findingKey(found[k]);
         const known = best.get(key);
         if (known === undefined || known.size > size)
           best.set(key, { finding: found[k], size, opening: o, combo });

@@ -378,7 +378,12 @@ const handsFreeAddOn: PartTemplate = {
     { a: 'MU', b: 'MR', when: 'handsFreeOn', label: 'On/off switch, handset mute' },
     { a: 'AC', b: 'AX', when: 'handsFreeOn', label: 'On/off switch, A-lead control' },
     // The served set's hold key opens the control loop, so a hands-free call can be held like a handset call.
-    { a: 'AX', b: 'A1', when: 'notHoldPressed', label: 'A-lead control, opened by the served set’s hold key' },
+    {
+      a: 'AX',
+      b: 'A1',
+      when: 'notHoldPressed',
+      label: 'A-lead control, opened by the served set’s hold key',
+    },
   ],
 };
 

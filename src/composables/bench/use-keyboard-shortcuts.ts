@@ -17,6 +17,8 @@ export const BENCH_SHORTCUTS: readonly Shortcut[] = [
   { keys: 'F', does: 'Fit the whole drawing in view' },
   { keys: 'Escape', does: 'Clear the selection' },
   { keys: '?', does: 'Show this list' },
+  { keys: 'Tab, then Enter', does: 'Focus a part on the drawing and select it' },
+  { keys: 'Arrow keys', does: 'Move the focused part (each step can be undone)' },
 ];
 
 export interface ShortcutHandlers {

@@ -2,10 +2,12 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { defineComponent, h, nextTick, ref } from 'vue';
 import { mount } from '@vue/test-utils';
 import { ApiError } from '@/api/client';
-import { useAutosave } from '@/composables/bench/use-autosave';
+import { readEditsBackup, useAutosave } from '@/composables/bench/use-autosave';
 import { twoSetPlan } from './bench-fixture';
 
 type Save = (doc: unknown, base?: string) => Promise<{ updatedAt: string }>;
+
+const BACKUP = 'test.unsaved.plan-1';
 
 function harness(save: Save) {
   const revision = ref(0);
@@ -21,6 +23,7 @@ function harness(save: Save) {
         save: save as never,
         onSaved: (at) => saved.push(at),
         delayMs: 800,
+        backupKey: BACKUP,
       });
       return () => h('div');
     },
@@ -40,7 +43,10 @@ function harness(save: Save) {
 }
 
 describe('useAutosave', () => {
-  beforeEach(() => vi.useFakeTimers());
+  beforeEach(() => {
+    vi.useFakeTimers();
+    localStorage.clear();
+  });
   afterEach(() => vi.useRealTimers());
 
   it('waits for a pause in editing, then saves the newest document once', async () => {
@@ -78,11 +84,15 @@ describe('useAutosave', () => {
     h.edit('C');
     await nextTick();
     expect(h.autosave.state.value).toBe('offline');
+    // While offline the newest edits are also kept in the browser, with the version they were based on.
+    expect(readEditsBackup(BACKUP)?.document.name).toBe('C');
+    expect(readEditsBackup(BACKUP)?.baseUpdatedAt).toBe('base');
     fail = false;
     await vi.advanceTimersByTimeAsync(2000); // second retry after 2 s sends the newest document
     expect(save).toHaveBeenCalledTimes(3);
     expect((save.mock.calls[2][0] as { name: string }).name).toBe('C');
     expect(h.autosave.state.value).toBe('saved');
+    expect(readEditsBackup(BACKUP)).toBeNull();
     h.wrapper.unmount();
   });
 

@@ -1,0 +1,69 @@
+/**
+ * Automated accessibility checks (axe-core, WCAG 2.x rules plus axe's best practices) on the pages a new user
+ * meets first, in both themes: nothing rated 'serious' or 'critical' may remain. Axe cannot judge everything
+ * (keyboard flow, wording); those are walked in the other journeys.
+ */
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import {
+  newAccount,
+  openBrowser,
+  seriousViolations,
+  signUp,
+  waitForPath,
+  type BrowserSession,
+} from '../support/browser';
+
+const baseUrl = inject('baseUrl');
+const chromiumPath = inject('chromiumPath');
+
+for (const scheme of ['light', 'dark'] as const) {
+  describe.skipIf(!chromiumPath)(`accessibility of the first pages (${scheme} theme)`, () => {
+    let session: BrowserSession;
+
+    beforeAll(async () => {
+      session = await openBrowser(chromiumPath, undefined, scheme);
+    });
+
+    afterAll(async () => {
+      await session?.close();
+    });
+
+    it('landing page', async () => {
+      const { page } = session;
+      await page.goto(`${baseUrl}/`);
+      await page.getByRole('heading', { level: 1 }).waitFor();
+      // Level "serious" and "critical" are axe-core's own impact ratings (axe-core rule descriptions).
+      expect(await seriousViolations(page)).toEqual([]);
+    });
+
+    it('sign-in page, also with a field error showing', async () => {
+      const { page } = session;
+      await page.goto(`${baseUrl}/sign-in`);
+      await page.getByRole('heading', { name: 'Sign in to Leadbench' }).waitFor();
+      expect(await seriousViolations(page)).toEqual([]);
+
+      await page.getByLabel('E-mail').fill('not-an-address');
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.getByText('Enter a valid e-mail address').waitFor();
+      expect(await seriousViolations(page)).toEqual([]);
+    });
+
+    it('plans page of a new account', async () => {
+      const { page } = session;
+      await signUp(page, baseUrl, newAccount(`a11y-${scheme}`));
+      await waitForPath(page, '/plans');
+      await page.getByRole('list', { name: 'Your plans' }).getByRole('listitem').first().waitFor();
+      expect(await seriousViolations(page)).toEqual([]);
+    });
+
+    it('the Bench with the demo plan open', async () => {
+      const { page } = session;
+      await page.getByRole('list', { name: 'Your plans' }).getByRole('link').first().click();
+      await page.waitForURL(/\/plans\/[^/]+$/);
+      await page.getByRole('heading', { name: /^Fault list/ }).waitFor();
+      await page.locator('[data-testid^="node-"]').first().waitFor();
+      expect(await page.locator('[data-testid^="node-"]').count()).toBeGreaterThan(1);
+      expect(await seriousViolations(page)).toEqual([]);
+    });
+  });
+}
