@@ -9,7 +9,17 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
-import { cure, evaluate, sweep, validatePlan, type Plan, type SimState } from '../../shared/engine';
+import {
+  cure,
+  evaluate,
+  sweep,
+  validatePlan,
+  type CureResult,
+  type Evaluation,
+  type Plan,
+  type SimState,
+  type SweepResult,
+} from '../../shared/engine';
 import { readState } from './sim-state';
 
 export const EXIT_CLEAN = 0;
@@ -48,9 +58,9 @@ function loadPlan(file: string): Plan {
 export interface SimOutput {
   plan: string;
   state: SimState;
-  evaluation: ReturnType<typeof evaluate>;
-  sweep?: ReturnType<typeof sweep>;
-  cure?: ReturnType<typeof cure>;
+  evaluation: Evaluation;
+  sweep?: SweepResult;
+  cure?: CureResult;
 }
 
 /** Runs the command and returns the exit status; all output goes through the two writers. */

@@ -517,6 +517,20 @@ export const useBenchStore = defineStore('bench', () => {
     return { ok: true };
   }
 
+  function setPortCount(count: number): EditResult {
+    const p = requirePlan();
+    if (!Number.isInteger(count) || count < 1 || count > 24)
+      return { ok: false, reason: 'A KSU has 1 to 24 station ports.' };
+    const used = p.cables
+      .flatMap((c) => [c.from, c.to])
+      .filter((end) => end.part === p.ksu.id)
+      .map((end) => Number(/(\d+)$/.exec(end.port)?.[1] ?? 0));
+    const highest = Math.max(0, ...used);
+    if (count < highest) return { ok: false, reason: `Station port ${highest} is cabled: unplug it first.` };
+    commit(`Set ${p.ksu.name} to ${count} station ports`, { ...p, ksu: { ...p.ksu, ports: count } });
+    return { ok: true };
+  }
+
   function addStation(code: string, label: string): EditResult {
     const p = requirePlan();
     if (!/^[0-9]{1,4}$/.test(code)) return { ok: false, reason: 'An intercom code is one to four digits.' };
@@ -599,6 +613,7 @@ export const useBenchStore = defineStore('bench', () => {
     updateSet,
     setAddOnServes,
     setLineCount,
+    setPortCount,
     addStation,
     removeStation,
     applyRemedy,

@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import {
   newAccount,
   openBrowser,
+  screenshot,
   seriousViolations,
   signUp,
   waitForPath,
@@ -63,6 +64,7 @@ for (const scheme of ['light', 'dark'] as const) {
       await page.getByRole('heading', { name: /^Fault list/ }).waitFor();
       await page.locator('[data-testid^="node-"]').first().waitFor();
       expect(await page.locator('[data-testid^="node-"]').count()).toBeGreaterThan(1);
+      await screenshot(page, `bench-demo-${scheme}`);
       expect(await seriousViolations(page)).toEqual([]);
     });
   });

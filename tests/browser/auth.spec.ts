@@ -102,7 +102,7 @@ describe.skipIf(!chromiumPath)('accounts and roles in the browser', () => {
 
     await signUp(page, baseUrl, account);
     await waitForPath(page, '/plans');
-    await page.getByText(`Welcome, ${account.displayName}.`).waitFor();
+    await page.getByText(`Welcome, ${account.displayName}.`).waitFor(); // our own copy (sign-up page)
     // New accounts are restorers (server/auth/auth.service.ts): Plans and Account only.
     expect(await navLabels(page)).toEqual(ROLE_EXPECTATIONS.restorer.nav);
     // Every new account starts with one copy of the demo installation.
@@ -111,7 +111,7 @@ describe.skipIf(!chromiumPath)('accounts and roles in the browser', () => {
     expect(await cards.count()).toBe(1);
 
     await page.getByTestId('user-menu').click();
-    await page.getByText('Restorer', { exact: true }).waitFor();
+    await page.getByText('Restorer', { exact: true }).waitFor(); // role label, src/navigation/role-labels.ts
     await page.keyboard.press('Escape');
 
     await signOut(page);
@@ -126,6 +126,7 @@ describe.skipIf(!chromiumPath)('accounts and roles in the browser', () => {
     session = await openBrowser(chromiumPath);
     const { page } = session;
     await signUp(page, baseUrl, { ...newAccount(), email: DEMO_ACCOUNTS.trainee });
+    // Our own copy (src/components/forms/SignUpForm.vue), shown on the field rather than in a banner.
     await page.getByText('An account with this e-mail already exists.').waitFor();
     expect(new URL(page.url()).pathname).toBe('/sign-up');
   });

@@ -113,6 +113,7 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
       .getByTestId('palette-six-key-hf')
       .dragTo(canvas, { targetPosition: at(k.x + k.width * 3, k.y + k.height * 0.9) });
     await page.getByTestId('node-set-2').waitFor();
+    // The KSU plus the three parts dropped above.
     expect(await page.locator('.vue-flow__node').count()).toBe(4);
 
     await page.getByTestId('fit-view').click();
@@ -129,7 +130,7 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
 
     // Used ports are drawn as such. With every set idle the only finding is a warning: both sets' own
     // hands-free leads (pairs 23-25 of our six-key hands-free template) are paralleled by the adapter.
-    expect(await page.locator('.lb-port--used').count()).toBe(6);
+    expect(await page.locator('.lb-port--used').count()).toBe(6); // three cables, two ends each
     const warning = page.getByTestId('finding-PRIVATE_LEAD_SHARED');
     await warning.waitFor();
     expect(await warning.innerText()).toMatch(/^Warning:/);
@@ -146,6 +147,15 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
     expect(await page.getByTestId('key-set-1-1').getAttribute('aria-pressed')).toBe('true');
     expect(await page.getByTestId('key-set-2-5').getAttribute('aria-pressed')).toBe('true');
     expect(await page.getByTestId('handset-set-2').getAttribute('aria-pressed')).toBe('true');
+
+    // What the user at Set 2 hears: both lines' exchanges, since the lines are joined (common practice:
+    // a joined pair carries both dial tones), and the KSU shows each line in use, joined to the other.
+    await page.getByTestId('panel-tab-handset').click();
+    const heard = page.getByTestId('heard-caption');
+    await expect.poll(() => heard.innerText()).toMatch(/line 1\b.*line 5\b/);
+    expect(await page.getByTestId('ksu-line-1').innerText()).toMatch(/joined to 5/);
+    expect(await page.getByTestId('ksu-line-5').innerText()).toMatch(/joined to 1/);
+    await page.getByTestId('panel-tab-faults').click();
 
     // Two hands-free sets bridged on one cable share their common talk pair, so line 1 and line 5 meet
     // (our own six-key hands-free template: pairs 23–25 carry the hands-free leads; common practice).
@@ -248,6 +258,7 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
 
     await page.reload();
     await page.getByTestId('node-set-2').waitFor();
+    // As drawn in the first step: four parts, three cables.
     expect(await page.locator('.vue-flow__node').count()).toBe(4);
     expect(await page.locator('.vue-flow__edge').count()).toBe(3);
     expect(await saved.getAttribute('data-state')).toBe('saved');

@@ -110,6 +110,28 @@ describe('cure of the other example plans', () => {
     expectCured(plan, result);
   });
 
+  it('three hands-free sets on one adapter: the last three pairs of two of them', () => {
+    const b = planBuilder();
+    const ksu = b.ksu({ lines: 5, stations: 1 });
+    const ad = b.adapter('bridging-adapter-4');
+    b.cable(ksu.port(1), ad.plug);
+    for (const name of ['Till', 'Office', 'Stores']) {
+      b.cable(
+        ad.jack(b.input().sets!.length + 1),
+        b.set('six-key-hf', name, { station: ksu.stations[0] }).cord,
+      );
+    }
+    const plan = b.build();
+    const result = cure(plan);
+    // Any two of three paralleled hands-free sets still share pairs 23–25 (fact 7 extended): common practice,
+    // no published source.
+    expect(result.changes).toHaveLength(6);
+    expect(result.proofOfMinimality).toBe('exhaustive');
+    expect(new Set(result.changes.map((c) => c.part)).size).toBe(2);
+    expect(liftedPairs(result)).toEqual([23, 23, 24, 24, 25, 25]);
+    expectCured(plan, result);
+  }, 30_000);
+
   it('a clean plan needs nothing', () => {
     // One set alone on its cable, with no more lines than keys: common practice, no published source.
     const b = planBuilder();
@@ -117,6 +139,24 @@ describe('cure of the other example plans', () => {
     b.cable(ksu.port(1), b.set('six-key', 'Alone', { station: ksu.stations[0] }).cord);
     const result = cure(b.build());
     expect(result).toMatchObject({ ok: true, changes: [], proofOfMinimality: 'exhaustive' });
+  });
+
+  it('names what a lift costs when every set has a hands-free add-on', () => {
+    const plan = example('two-set.json');
+    const withAddOns: Plan = {
+      ...plan,
+      addOns: plan.sets.map((s, i) => ({
+        id: `hf-${i}`,
+        name: `Speaker ${i}`,
+        template: 'hands-free',
+        serves: s.id,
+        leadChanges: [],
+      })),
+    };
+    const result = cure(withAddOns);
+    expect(result.changes).toHaveLength(3);
+    const name = withAddOns.sets.find((s) => s.id === result.changes[0].part)!.name;
+    expect(result.changes.every((c) => c.cost === `${name} loses its hands-free connection`)).toBe(true);
   });
 
   it('says so when no lead change can keep what is required', () => {

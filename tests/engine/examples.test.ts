@@ -1,3 +1,7 @@
+/**
+ * The shipped example plans and helpers. Check values: colours ICEA S-80-576; pair plan our own scheme
+ * (shared/engine/templates/README.md); scenario behaviour common practice, no published source.
+ */
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';

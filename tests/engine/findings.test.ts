@@ -332,3 +332,27 @@ describe('findings in general', () => {
     expect(evaluateWithNets(plan, ringing, nets)).toEqual(evaluate(plan, ringing));
   });
 });
+
+describe('finding paths', () => {
+  it('run from the first to the last terminal without visiting any terminal twice', () => {
+    const { plan, a, b } = hf();
+    const state = operate(plan, [
+      { kind: 'press-key', set: a, key: 2 },
+      { kind: 'lift-handset', set: a },
+      { kind: 'press-key', set: b, key: 4 },
+      { kind: 'lift-handset', set: b },
+      { kind: 'intercom-call', station: 'st-22' },
+    ]);
+    const ev = evaluate(plan, state);
+    expect(ev.findings.length).toBeGreaterThan(4);
+    for (const f of ev.findings) {
+      expect(f.path.length, f.code).toBeGreaterThan(1);
+      const places = f.path.map((h) => `${h.part}|${h.port ?? ''}|${h.pin ?? ''}|${h.terminal ?? ''}`);
+      expect(new Set(places).size, f.code).toBe(places.length);
+      expect(
+        f.path.slice(1).every((h) => h.text.includes(' — via ')),
+        f.code,
+      ).toBe(true);
+    }
+  });
+});

@@ -272,3 +272,37 @@ describe('actionProblem', () => {
     expect(actionProblem(plan, { kind: 'dial', set, digits: '21' })).toBeNull();
   });
 });
+
+describe('odd input', () => {
+  it('evaluates a plan with unknown parts and ports without throwing, ignoring what it cannot place', () => {
+    const b = planBuilder();
+    const ksu = b.ksu({ lines: 2 });
+    const x = b.set('six-key', 'Desk');
+    b.set('no-such-set', 'Mystery');
+    b.cable(ksu.port(1), x.cord);
+    b.cable(ksu.port(9), { part: 'ghost', port: 'cord' });
+    const plan = b.build();
+    const state = operate(plan, [
+      { kind: 'press-key', set: x.id, key: 1 },
+      { kind: 'lift-handset', set: x.id },
+      { kind: 'lift-handset', set: 'ghost' },
+      { kind: 'ring-line', line: 7 },
+      { kind: 'intercom-call', station: 'nowhere' },
+    ]);
+    const ev = evaluate(plan, state);
+    expect(ev.lines[0]).toMatchObject({ status: 'in-use', setsOn: [x.id] });
+    expect(ev.sets.map((s) => s.set)).toEqual([x.id, 'mystery']);
+    expect(ev.sets[1].keys).toEqual([]);
+    expect(state.intercom.calling).toBeNull();
+  });
+
+  it('evaluates a state written by hand with sets and lines missing', () => {
+    const { plan, set } = oneSet();
+    const ev = evaluate(plan, {
+      sets: { [set]: { offHook: true, pressedKey: 3, handsFreeOn: false } },
+      lines: [],
+      intercom: { calling: null },
+    });
+    expect(ev.lines[2]).toMatchObject({ aClosed: true, loopClosed: true, far: 'idle' });
+  });
+});

@@ -145,10 +145,16 @@ describe('sweep states and events', () => {
     // sets together with no event. Arithmetic over the plan, no published source.
     expect(planned.events).toHaveLength(15);
     expect(planned.total).toBe((1 + 4 * 11) * 15 + 6 * 121);
-    const result = sweep(plan, { limit: 3000 });
+    const result = sweep(plan);
     expect(result.strategy).toBe('reduced');
-    expect(result.complete).toBe(false);
+    expect(result.complete).toBe(true);
+    expect(result.statesVisited).toBe(planned.total);
+    // Two hands-free sets with different line keys join their lines (fact 5): common practice, no published source.
     expect(result.findings.map((f) => f.finding)).toHaveFinding('LINES_JOINED');
+
+    const capped = sweep(plan, { limit: 100 });
+    expect(capped.statesVisited).toBe(100);
+    expect(capped.complete).toBe(false);
   });
 
   it('reports progress, and stops when asked', () => {

@@ -1,3 +1,8 @@
+/**
+ * Part templates and the pair plan. Check values: colours ICEA S-80-576, pins USOC RJ21X (47 CFR Part 68 Subpart F);
+ * pair assignments are our own scheme (shared/engine/templates/README.md); key-set behaviour is common practice,
+ * no published source.
+ */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -96,7 +101,7 @@ describe('part templates', () => {
     for (let pair = 19; pair <= 25; pair++) expect(leadsOnPair('six-key', pair), `pair ${pair}`).toEqual([]);
   });
 
-  it('brings the hands-free circuits of a six-key set out on pairs 23, 24 and 25 (fact 1)', () => {
+  it('brings the hands-free circuits of a six-key set out on pairs 23, 24 and 25', () => {
     const talk = leadsOnPair('six-key-hf', 23);
     const mute = leadsOnPair('six-key-hf', 24);
     const aControl = leadsOnPair('six-key-hf', 25);
@@ -112,7 +117,7 @@ describe('part templates', () => {
     ]); // ICEA S-80-576
   });
 
-  it('switches the common talk pair on pair 23 through the latched line key (fact 1)', () => {
+  it('switches the common talk pair on pair 23 through the latched line key', () => {
     const b = planBuilder();
     const ksu = b.ksu({ lines: 5 });
     const set = b.set('six-key-hf', 'Front');
@@ -143,13 +148,13 @@ describe('part templates', () => {
     expect(springs.map((c) => c.b)).toContain('L7.A');
   });
 
-  it('gives the bridging adapter two jacks and one plug (fact 2)', () => {
+  it('gives the bridging adapter two jacks and one plug', () => {
     const ports = getTemplate('bridging-adapter')!.ports;
     expect(ports.filter((p) => p.gender === 'jack')).toHaveLength(2);
     expect(ports.filter((p) => p.gender === 'plug')).toHaveLength(1);
   });
 
-  it('parallels every pin of the adapter plug and both jacks, and nothing else (fact 2)', () => {
+  it('parallels every pin of the adapter plug and both jacks, and nothing else', () => {
     const b = planBuilder();
     b.ksu({ lines: 1 });
     const ad = b.adapter();

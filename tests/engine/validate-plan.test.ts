@@ -1,3 +1,7 @@
+/**
+ * Plan validation and cable rules. Check values: the expected messages are this product's own wording (no published
+ * source); the plug-to-jack rule is common practice for 25-pair connectorised cabling, no published source.
+ */
 import { describe, expect, it } from 'vitest';
 import { canConnect, validatePlan, type PlanInput } from '../../shared/engine/index';
 import { planBuilder } from '../support/plan-builder';

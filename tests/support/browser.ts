@@ -58,7 +58,12 @@ export async function screenshot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: join(ARTIFACTS, `${name}.png`) });
 }
 
-export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<void> {
+export async function signIn(
+  page: Page,
+  baseUrl: string,
+  email: string,
+  password = DEMO_PASSWORD,
+): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
@@ -117,6 +122,12 @@ export function collectPageErrors(page: Page): string[] {
 /** Axe's serious and critical violations on the page as it stands, one readable line per element. */
 export async function seriousViolations(page: Page, exclude: string[] = []): Promise<string[]> {
   const { AxeBuilder } = await import('@axe-core/playwright');
+  // Colours caught halfway through a fade-in would be judged as they never stay; let transitions finish.
+  await page.waitForFunction(() =>
+    document
+      .getAnimations()
+      .every((a) => a.playState !== 'running' || a.effect?.getTiming().iterations === Infinity),
+  );
   let builder = new AxeBuilder({ page });
   for (const selector of exclude) builder = builder.exclude(selector);
   const results = await builder.analyze();

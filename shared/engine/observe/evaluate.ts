@@ -476,11 +476,18 @@ function networkTerminal(c: Context, setIndex: number): number {
   return -1;
 }
 
+const viaCache = new WeakMap<TerminalPath, string>();
+
+/** ", because Front's talk pair (CT) on pair 23 … is bridged to …": once per path (findings share paths). */
 function describeVia(c: Context, p: TerminalPath): string {
-  const crossing = firstCrossing(c.nl, p);
-  if (crossing) return `, because ${crossingSentence(crossing)}`;
-  const lead = firstUnitLeadSentence(c.nl, p);
-  return lead ? `, through ${lead}` : '';
+  let text = viaCache.get(p);
+  if (text === undefined) {
+    const crossing = firstCrossing(c.nl, p);
+    const lead = crossing ? null : firstUnitLeadSentence(c.nl, p);
+    text = crossing ? `, because ${crossingSentence(crossing)}` : lead ? `, through ${lead}` : '';
+    viaCache.set(p, text);
+  }
+  return text;
 }
 
 function intercomMessage(

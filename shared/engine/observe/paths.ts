@@ -120,10 +120,15 @@ export class PathFinder {
     if (prev[from] === -1 || prev[to] === -1) return null;
     const upFrom: number[] = [from];
     for (let t = from; prev[t] !== t; t = prev[t]) upFrom.push(prev[t]);
-    const position = new Map(upFrom.map((t, i) => [t, i]));
+    this.stamp++;
+    const { mark, position } = this.scratch();
+    for (let i = 0; i < upFrom.length; i++) {
+      mark[upFrom[i]] = this.stamp;
+      position[upFrom[i]] = i;
+    }
     const upTo: number[] = [to];
-    for (let t = to; !position.has(t); t = prev[t]) upTo.push(prev[t]);
-    const meet = position.get(upTo[upTo.length - 1])!;
+    for (let t = to; mark[t] !== this.stamp; t = prev[t]) upTo.push(prev[t]);
+    const meet = position[upTo[upTo.length - 1]];
     const terms = upFrom.slice(0, meet + 1);
     const edges: number[] = [];
     for (let i = 0; i < meet; i++) edges.push(prevEdge[upFrom[i]]);
@@ -132,6 +137,14 @@ export class PathFinder {
       edges.push(prevEdge[upTo[i]]);
     }
     return { terms, edges };
+  }
+
+  private stamp = 0;
+  private marks: { mark: Int32Array; position: Int32Array } | null = null;
+
+  private scratch(): { mark: Int32Array; position: Int32Array } {
+    const n = this.nl.terminals.length;
+    return (this.marks ??= { mark: new Int32Array(n), position: new Int32Array(n) });
   }
 
   private netOf(t: number): number {
@@ -227,40 +240,65 @@ function describeTerminal(nl: Netlist, term: number): string {
   return `${part.name}, terminal ${t.name}${d && d !== t.name ? ` (${d})` : ''}`;
 }
 
+const hopCache = new WeakMap<Netlist, Map<number, Hop>>();
+
+/** Hops depend only on the terminal and the wire or contact that reached it, so they are made once per netlist. */
 export function toHops(nl: Netlist, path: TerminalPath): Hop[] {
-  return path.terms.map((term, i) => {
-    const t = nl.terminals[term];
-    const part = nl.parts[t.part];
-    const via = i > 0 ? nl.edges[path.edges[i - 1]] : undefined;
-    const hop: Hop = { part: part.id, partName: part.name, text: terminalText(nl, term) };
-    if (t.pin !== undefined) {
-      hop.pin = t.pin;
-      hop.port = t.port;
-      hop.pair = t.pair;
-      hop.conductor = t.conductor;
-      hop.colour = pairColour(t.pair!).name;
-    } else {
-      hop.terminal = t.name;
-      if (t.lead) hop.designation = t.lead.designation;
-      // A part terminal entered or left by a lead: name the cord pair that lead is on.
-      const next = i < path.edges.length ? nl.edges[path.edges[i]] : undefined;
-      const leadEdge = via?.kind === 'lead' ? via : next?.kind === 'lead' ? next : undefined;
-      if (leadEdge) {
-        const pin = nl.terminals[leadEdge === via ? path.terms[i - 1] : path.terms[i + 1]];
-        if (pin.pair !== undefined) {
-          hop.pair = pin.pair;
-          hop.conductor = pin.conductor;
-          hop.colour = pairColour(pin.pair).name;
-          hop.designation = leadEdge.lead?.designation ?? hop.designation;
-        }
+  let cache = hopCache.get(nl);
+  if (!cache) {
+    cache = new Map();
+    hopCache.set(nl, cache);
+  }
+  const stride = nl.edges.length + 1;
+  const hops: Hop[] = new Array(path.terms.length);
+  for (let i = 0; i < path.terms.length; i++) {
+    const via = i > 0 ? path.edges[i - 1] : -1;
+    const next = i < path.edges.length ? path.edges[i] : -1;
+    // The hop of a part terminal also names the pair of an adjacent lead, so the next edge is part of the key.
+    const key = (path.terms[i] * stride + via + 1) * stride + next + 1;
+    let hop = cache.get(key);
+    if (!hop) {
+      hop = makeHop(nl, path, i);
+      cache.set(key, hop);
+    }
+    hops[i] = hop;
+  }
+  return hops;
+}
+
+function makeHop(nl: Netlist, path: TerminalPath, i: number): Hop {
+  const term = path.terms[i];
+  const t = nl.terminals[term];
+  const part = nl.parts[t.part];
+  const via = i > 0 ? nl.edges[path.edges[i - 1]] : undefined;
+  const hop: Hop = { part: part.id, partName: part.name, text: terminalText(nl, term) };
+  if (t.pin !== undefined) {
+    hop.pin = t.pin;
+    hop.port = t.port;
+    hop.pair = t.pair;
+    hop.conductor = t.conductor;
+    hop.colour = pairColour(t.pair!).name;
+  } else {
+    hop.terminal = t.name;
+    if (t.lead) hop.designation = t.lead.designation;
+    // A part terminal entered or left by a lead: name the cord pair that lead is on.
+    const next = i < path.edges.length ? nl.edges[path.edges[i]] : undefined;
+    const leadEdge = via?.kind === 'lead' ? via : next?.kind === 'lead' ? next : undefined;
+    if (leadEdge) {
+      const pin = nl.terminals[leadEdge === via ? path.terms[i - 1] : path.terms[i + 1]];
+      if (pin.pair !== undefined) {
+        hop.pair = pin.pair;
+        hop.conductor = pin.conductor;
+        hop.colour = pairColour(pin.pair).name;
+        hop.designation = leadEdge.lead?.designation ?? hop.designation;
       }
     }
-    if (via) {
-      hop.text += ` — via ${via.label}`;
-      if (via.cable) hop.cable = via.cable;
-    }
-    return hop;
-  });
+  }
+  if (via) {
+    hop.text += ` — via ${via.label}`;
+    if (via.cable) hop.cable = via.cable;
+  }
+  return hop;
 }
 
 export interface Crossing {

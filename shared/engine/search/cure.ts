@@ -50,9 +50,9 @@ export interface CureResult {
 }
 
 export interface CureOptions {
-  /** Largest number of changes searched for (default 6). */
+  /** Largest number of changes searched for (default 8). */
   maxChanges?: number;
-  /** Largest number of change sets tried before giving up (default 20 000). */
+  /** Largest number of change sets tried before giving up (default 10 000). */
   budget?: number;
   /** Passed to every sweep the cure runs. */
   sweep?: Pick<SweepOptions, 'strategy' | 'limit'>;
@@ -270,6 +270,15 @@ function moveCandidates(plan: Plan, setId: string, ports: number[]): Candidate[]
     .map((s) => s.id)
     .filter((id) => id === own || (!own && !assignedElsewhere.has(id)));
   const crossConnect = plan.ksu.crossConnect ?? standardCrossConnect(plan.ksu);
+  // Names of the other sets on this port whose buzzer is on each pair.
+  const stayingOn = new Map<number, string[]>();
+  plan.sets.forEach((s, i) => {
+    if (i === setIndex || ports[i] !== port) return;
+    for (const l of partView(plan, s.id)?.leads ?? []) {
+      if (l.scope !== 'station' || l.pair === null || l.conductor !== 'tip') continue;
+      stayingOn.set(l.pair, [...(stayingOn.get(l.pair) ?? []), s.name]);
+    }
+  });
   const out: Candidate[] = [];
   for (const from of fromPairs) {
     for (let to = 1; to <= 25; to++) {
@@ -279,6 +288,15 @@ function moveCandidates(plan: Plan, setId: string, ports: number[]): Candidate[]
         const replaces = crossConnect.find(
           (x) => x.port === port && x.pair === from && x.lead.kind === 'buzzer' && x.lead.station === station,
         );
+        // Sets left on the old pair lose their buzzer when that was the last station output on it.
+        const stillFed = crossConnect.some(
+          (x) => x.port === port && x.pair === from && x.lead.kind === 'buzzer' && x !== replaces,
+        );
+        const stranded = replaces && !stillFed ? (stayingOn.get(from) ?? []) : [];
+        const code = plan.ksu.stations.find((s) => s.id === station)?.code ?? station;
+        const strandedText = stranded.length
+          ? `; ${stranded.join(' and ')} ${stranded.length === 1 ? 'stays' : 'stay'} on pair ${from}, which no station feeds any more`
+          : '';
         out.push({
           replaces,
           id: `${setId}/move/${from}/${to}/${station}`,
@@ -288,12 +306,12 @@ function moveCandidates(plan: Plan, setId: string, ports: number[]): Candidate[]
           change: { kind: 'move', pair: from, toPair: to },
           crossConnect: { port, pair: to, lead: { kind: 'buzzer', station } },
           station: station === own ? undefined : station,
-          cost: `none: spare pair ${to}, cross-connected at the KSU to station ${
-            plan.ksu.stations.find((s) => s.id === station)?.code ?? station
-          }`,
+          cost: stranded.length
+            ? `spare pair ${to}, cross-connected at the KSU to station ${code}${strandedText}`
+            : `none: spare pair ${to}, cross-connected at the KSU to station ${code}`,
           // Pairs no shipped template uses first (nothing added to this cable later can land on them), then
-          // lower pairs first, so the same plan always gets the same pair.
-          rank: 2 + (PAIRS_IN_TEMPLATES.has(to) ? 0.5 : 0) + to / 1000,
+          // lower pairs first, so the same plan always gets the same pair. Stranding other buzzers costs more.
+          rank: 2 + (PAIRS_IN_TEMPLATES.has(to) ? 0.5 : 0) + to / 1000 + 40 * stranded.length,
         });
       }
     }
@@ -394,8 +412,8 @@ class Trial {
  * change sets of the smallest size that pass everything, the cheapest wins.
  */
 export function cure(plan: Plan, opts: CureOptions = {}): CureResult {
-  const maxChanges = opts.maxChanges ?? 6;
-  const budget = opts.budget ?? 20_000;
+  const maxChanges = opts.maxChanges ?? 8;
+  const budget = opts.budget ?? 10_000;
   const sweepOpts = opts.sweep ?? {};
   const ports = stationPortOfSets(plan);
 

@@ -14,7 +14,7 @@ export interface ToneOnLine {
 interface Source {
   startedAt: number;
   tone: ToneName;
-  oscillators: OscillatorNode[];
+  oscillators: AudioScheduledSourceNode[];
   gate: GainNode;
   lit: boolean;
 }
@@ -32,6 +32,34 @@ export function toneIsOn(tone: ToneName, elapsedMs: number): boolean {
   const spec = TONES[tone];
   if (!spec.offMs) return true;
   return elapsedMs % (spec.onMs + spec.offMs) < spec.onMs;
+}
+
+/**
+ * A stand-in for a far party talking (a tone with no frequencies): band-limited noise whose level rises
+ * and falls at a syllable-like rate, so it reads as speech on a line rather than as a signal.
+ */
+function murmur(ctx: AudioContext, out: GainNode): AudioScheduledSourceNode[] {
+  const buffer = ctx.createBuffer(1, ctx.sampleRate * 2, ctx.sampleRate);
+  const data = buffer.getChannelData(0);
+  for (let i = 0; i < data.length; i += 1) data[i] = Math.random() * 2 - 1;
+  const noise = ctx.createBufferSource();
+  noise.buffer = buffer;
+  noise.loop = true;
+  const band = ctx.createBiquadFilter();
+  band.type = 'bandpass';
+  band.frequency.value = 700;
+  band.Q.value = 0.8;
+  const level = ctx.createGain();
+  level.gain.value = 0.5;
+  const syllables = ctx.createOscillator();
+  syllables.frequency.value = 4;
+  const depth = ctx.createGain();
+  depth.gain.value = 0.5;
+  syllables.connect(depth).connect(level.gain);
+  noise.connect(band).connect(level).connect(out);
+  noise.start();
+  syllables.start();
+  return [noise, syllables];
 }
 
 export function useHandsetAudio(tones: Ref<ToneOnLine[]>) {
@@ -57,14 +85,16 @@ export function useHandsetAudio(tones: Ref<ToneOnLine[]>) {
     const gate = ctx.createGain();
     gate.gain.value = 0;
     gate.connect(master);
-    const oscillators = spec.frequencies.map((f) => {
-      const osc = ctx!.createOscillator();
-      osc.type = 'sine';
-      osc.frequency.value = f;
-      osc.connect(gate);
-      osc.start();
-      return osc;
-    });
+    const oscillators: AudioScheduledSourceNode[] = spec.frequencies.length
+      ? spec.frequencies.map((f) => {
+          const osc = ctx!.createOscillator();
+          osc.type = 'sine';
+          osc.frequency.value = f;
+          osc.connect(gate);
+          osc.start();
+          return osc;
+        })
+      : murmur(ctx, gate);
     sources.set(toneKey(t), { startedAt: ctx.currentTime, tone: t.tone, oscillators, gate, lit: false });
   }
 

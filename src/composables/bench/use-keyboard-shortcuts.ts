@@ -14,6 +14,7 @@ export const BENCH_SHORTCUTS: readonly Shortcut[] = [
   { keys: 'Ctrl+Z', does: 'Undo the last edit' },
   { keys: 'Ctrl+Shift+Z or Ctrl+Y', does: 'Redo' },
   { keys: 'Ctrl+D', does: 'Duplicate the selected part' },
+  { keys: 'F2', does: 'Rename the selected part' },
   { keys: 'F', does: 'Fit the whole drawing in view' },
   { keys: 'Escape', does: 'Clear the selection' },
   { keys: '?', does: 'Show this list' },
@@ -26,6 +27,7 @@ export interface ShortcutHandlers {
   undo: () => void;
   redo: () => void;
   duplicate: () => void;
+  rename: () => void;
   fit: () => void;
   clear: () => void;
   help: () => void;
@@ -53,6 +55,7 @@ export function shortcutFor(
   if (e.altKey) return null;
   if (e.key === 'Delete' || e.key === 'Backspace') return 'remove';
   if (e.key === 'Escape') return 'clear';
+  if (e.key === 'F2') return 'rename';
   if (e.key === '?') return 'help';
   if (key === 'f' && !e.shiftKey) return 'fit';
   return null;

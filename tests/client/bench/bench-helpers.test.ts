@@ -49,6 +49,8 @@ describe('bench shortcuts', () => {
     expect(shortcutFor(key('d', { metaKey: true }))).toBe('duplicate');
     expect(shortcutFor(key('Delete'))).toBe('remove');
     expect(shortcutFor(key('f'))).toBe('fit');
+    expect(shortcutFor(key('F2'))).toBe('rename');
+    expect(shortcutFor(key('Escape'))).toBe('clear');
     expect(shortcutFor(key('?', { shiftKey: true }))).toBe('help');
     expect(shortcutFor(key('a'))).toBeNull();
     expect(shortcutFor(key('f', { altKey: true }))).toBeNull();

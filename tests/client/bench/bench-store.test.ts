@@ -63,6 +63,22 @@ describe('bench store history', () => {
     expect(store.plan?.cables.map((c) => c.id)).toEqual(['c-ksu', 'c-front', 'c-back']);
   });
 
+  it('will not take away a station port that has a cable in it', () => {
+    const store = benchWith();
+    // The fixture cables the adapter into station port 1 of a four-port KSU.
+    expect(store.setPortCount(0).ok).toBe(false);
+    expect(store.setPortCount(2)).toEqual({ ok: true });
+    expect(store.plan?.ksu.ports).toBe(2);
+    store.removePart('c-front');
+    expect(store.connect({ part: 'front', port: 'cord' }, { part: 'ksu', port: 'port-2' })).toEqual({
+      ok: true,
+    });
+    const refused = store.setPortCount(1);
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.reason).toContain('port 2');
+    expect(store.plan?.ksu.ports).toBe(2);
+  });
+
   it('keeps the key service unit', () => {
     const store = benchWith();
     const result = store.removePart('ksu');

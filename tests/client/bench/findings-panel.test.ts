@@ -29,7 +29,7 @@ describe('FindingsPanel', () => {
     expect(hops).toHaveLength(first.path.length);
     const withPair = first.path.findIndex((h) => h.pair === 23 && h.conductor === 'tip');
     // Pair 23 is violet-green and its tip is violet (ICEA S-80-576 colour code).
-    expect(hops[withPair].text()).toContain('pair 23 (violet-green), tip');
+    expect(hops[withPair].text()).toContain('pair 23 (violet-green), tip:');
     expect(hops[withPair].find('.lb-colour').text()).toBe('violet');
 
     await items[index].trigger('click');

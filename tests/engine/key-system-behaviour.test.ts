@@ -13,7 +13,7 @@ const line = (plan: Plan, state: SimState, n: number) =>
 const setObs = (plan: Plan, state: SimState, id: string) =>
   evaluate(plan, state).sets.find((s) => s.set === id)!;
 
-describe('fact 3: two hands-free wired sets on one cable light each other’s lines', () => {
+describe('two hands-free wired sets on one cable light each other’s lines', () => {
   const { plan, a, b } = setsOnOneCable(['six-key-hf', 'six-key-hf']);
 
   it('lights line 1 and line 5 when the line-5 set is lifted', () => {
@@ -33,7 +33,7 @@ describe('fact 3: two hands-free wired sets on one cable light each other’s li
   });
 });
 
-describe('fact 4: with every key of one set released, the other set works normally', () => {
+describe('with every key of one set released, the other set works normally', () => {
   const { plan, a, b } = setsOnOneCable(['six-key-hf', 'six-key-hf']);
 
   it('gives one dial tone on an originated call', () => {
@@ -97,7 +97,7 @@ describe('fact 4: with every key of one set released, the other set works normal
   });
 });
 
-describe('fact 5: different line keys on the two sets join their lines into a conference', () => {
+describe('different line keys on the two sets join their lines into a conference', () => {
   const { plan, a, b } = setsOnOneCable(['six-key-hf', 'six-key-hf']);
   const conference: SimAction[] = [
     { kind: 'press-key', set: a, key: 1 },
@@ -140,7 +140,7 @@ describe('fact 5: different line keys on the two sets join their lines into a co
   });
 });
 
-describe('fact 6: a set with no key down breaks into the call in progress', () => {
+describe('a set with no key down breaks into the call in progress', () => {
   const { plan, a, b } = setsOnOneCable(['six-key-hf', 'six-key-hf']);
 
   it('hears the call on the other set and joins it when it presses another line key', () => {
@@ -163,7 +163,7 @@ describe('fact 6: a set with no key down breaks into the call in progress', () =
   });
 });
 
-describe('fact 7: lifting the three last-pair leads in one set cures it', () => {
+describe('lifting the three last-pair leads in one set cures it', () => {
   const { plan, a, b } = setsOnOneCable(['six-key-hf', 'six-key-hf'], {
     sets: [{ leadChanges: LIFT_LAST_THREE_PAIRS }, {}],
   });
@@ -221,7 +221,7 @@ describe('fact 7: lifting the three last-pair leads in one set cures it', () => 
   });
 });
 
-describe('fact 8: intercom buzzers on one pair', () => {
+describe('intercom buzzers on one pair', () => {
   function intercomPlan(movedToSpare: boolean) {
     const b = planBuilder();
     const cc = movedToSpare
@@ -271,7 +271,7 @@ describe('fact 8: intercom buzzers on one pair', () => {
   });
 });
 
-describe('fact 9: a six-key hands-free set and a ten-key set on one cable', () => {
+describe('a six-key hands-free set and a ten-key set on one cable', () => {
   const conflict = setsOnOneCable(['six-key-hf', 'ten-key'], { lines: 9 });
 
   it('conflict, because the ten-key set switches leads on pairs 23–25 through its key strip', () => {
@@ -312,7 +312,7 @@ describe('fact 9: a six-key hands-free set and a ten-key set on one cable', () =
   });
 });
 
-describe('fact 9, seen on the lamps', () => {
+describe('a six-key hands-free set and a ten-key set, seen on the lamps', () => {
   it('shorts the ten-key set’s line 9 lamp lead to the six-key set’s A1 on pair 25 until the pair is lifted', () => {
     const use9 = (sets: [object, object]) => {
       const { plan, b } = setsOnOneCable(['six-key-hf', 'ten-key'], { lines: 9, sets });
