@@ -12,7 +12,7 @@ import {
   evaluate,
   getTemplate,
   initialState,
-  validatePlan,
+  crossReferenceIssues,
   type CureResult,
   type Evaluation,
   type Finding,
@@ -98,12 +98,11 @@ export const useBenchStore = defineStore('bench', () => {
       return { evaluation: null, error: err instanceof Error ? err.message : String(err) };
     }
   });
-  /** What the engine's cross-reference checks say about the drawing (the server refuses such documents). */
-  const issues = computed(() => {
-    if (!plan.value) return [];
-    const result = validatePlan(plan.value);
-    return result.ok ? [] : result.issues;
-  });
+  /**
+   * What the engine's cross-reference checks say about the drawing (the server refuses such documents).
+   * Edits build documents field by field from valid ones, so only the cross-references need checking here.
+   */
+  const issues = computed(() => (plan.value ? crossReferenceIssues(plan.value) : []));
   const evaluation = computed(() => evaluationResult.value.evaluation);
   const evaluationError = computed(() => evaluationResult.value.error);
   const findings = computed<Finding[]>(() => evaluation.value?.findings ?? []);

@@ -203,8 +203,8 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
     expect(progress.length).toBeGreaterThan(0);
     for (const text of progress) expect(text).toMatch(/^(Starting…|\d+ of \d+ states)$/);
 
-    // "N states visited (...), M faults found." with the same M as rows in the table.
-    const match = /(\d+) states visited .*?, (\d+) faults? found/.exec(await summary.innerText());
+    // "N states visited (...): M findings, F faults and W warnings." with the same M as rows in the table.
+    const match = /(\d+) states visited .*?: (\d+) findings?,/.exec(await summary.innerText());
     expect(match).not.toBeNull();
     expect(Number(match![1])).toBeGreaterThan(1);
     const rows = page.getByTestId('sweep-results').locator('tbody tr');
