@@ -46,6 +46,8 @@ const EnvSchema = z.object({
     .int()
     .min(1, 'Allow at least 1 attempt')
     .default(20),
+  /** Folder of the built client; the repository's dist/ when unset. */
+  CLIENT_DIR: z.string().trim().min(1).optional(),
 });
 
 export interface Config {
@@ -64,6 +66,8 @@ export interface Config {
   authRateLimit: { windowMs: number; limit: number };
   /** Express "trust proxy": client addresses (for rate limits and logs) come from X-Forwarded-For. */
   trustProxy: boolean | number;
+  /** Folder of the built client, when not the default dist/. */
+  clientDir?: string;
 }
 
 export class ConfigError extends Error {}
@@ -91,5 +95,6 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     seedDemo: e.SEED_DEMO,
     authRateLimit: { windowMs: 15 * 60_000, limit: e.RATE_LIMIT_MAX },
     trustProxy: e.TRUST_PROXY,
+    clientDir: e.CLIENT_DIR,
   };
 }

@@ -58,10 +58,11 @@ await sweepSessions();
 const sessionSweep = setInterval(sweepSessions, 60 * 60_000);
 sessionSweep.unref();
 
-const app = createApp({ db, config, mailer, logger });
+const app = createApp({ db, config, mailer, logger, clientDir: config.clientDir });
 const server = app.listen(config.port, config.host, () => {
   const { port } = server.address() as AddressInfo;
-  const shown = config.host === '0.0.0.0' || config.host === '::' ? 'localhost' : config.host;
+  const loopback = ['0.0.0.0', '::', '127.0.0.1', '::1', 'localhost'].includes(config.host);
+  const shown = loopback ? 'localhost' : config.host;
   console.log(`\nLeadbench is running at http://${shown}:${port}/`);
   if (config.seedDemo) {
     console.log(`Demo sign-ins (password ${DEMO_PASSWORD}):`);

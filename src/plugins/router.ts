@@ -19,5 +19,15 @@ export function createBrowserRouter(pinia: Pinia) {
     session.setUser(null);
     if (!current.meta.public) void router.replace({ name: 'sign-in', query: { next: current.fullPath } });
   });
+  // A new build replaces the lazily loaded page chunks; a tab opened before it fails to fetch them. Load the
+  // target page afresh once instead of leaving the user on a broken screen.
+  router.onError((error, to) => {
+    const stale = /dynamically imported module|Importing a module script failed/i.test(String(error?.message));
+    const key = `leadbench:reloaded:${to.fullPath}`;
+    if (stale && !sessionStorage.getItem(key)) {
+      sessionStorage.setItem(key, '1');
+      window.location.assign(to.fullPath);
+    }
+  });
   return router;
 }

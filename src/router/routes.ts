@@ -52,6 +52,13 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Bench', fullBleed: true },
   },
   {
+    path: '/plans/:id/sheet',
+    name: 'work-sheet',
+    component: () => import('@/pages/work-sheet/index.vue'),
+    props: true,
+    meta: { title: 'Work sheet' },
+  },
+  {
     path: '/drills',
     name: 'drills',
     component: () => import('@/pages/drills/index.vue'),

@@ -56,10 +56,14 @@ export default async function setup(project: TestProject) {
     return;
   }
 
-  const build = spawnSync('npx', ['tsx', 'server/tools/ensure-client.ts'], { stdio: 'inherit' });
+  // A private build, so nothing that rebuilds dist/ meanwhile can pull the page's chunks away mid-run.
+  const dir = mkdtempSync(join(tmpdir(), 'leadbench-browser-'));
+  const clientDir = join(dir, 'client');
+  const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn', '--outDir', clientDir, '--emptyOutDir'], {
+    stdio: 'inherit',
+  });
   if (build.status !== 0) throw new Error('Building the client for the browser tests failed');
 
-  const dir = mkdtempSync(join(tmpdir(), 'leadbench-browser-'));
   const port = await freePort();
   const baseUrl = `http://localhost:${port}`;
   let log = '';
@@ -68,6 +72,7 @@ export default async function setup(project: TestProject) {
       ...process.env,
       PORT: String(port),
       DATABASE_FILE: join(dir, 'browser.sqlite'),
+      CLIENT_DIR: clientDir,
       LOG_LEVEL: 'warn',
       RATE_LIMIT_MAX: '1000',
       NODE_ENV: 'test',

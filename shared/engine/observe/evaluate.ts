@@ -314,7 +314,38 @@ export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): 
   return fixed.length ? dynamic.concat(fixed) : dynamic;
 }
 
-function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[]): Finding[] {
+/**
+ * The findings a KSU event adds to those of its mechanical state, for the sweep: it evaluates each mechanical
+ * state once with the KSU idle (evaluateFindings over initialState's lines) and every other event with this. The
+ * keys (code, sets, lines, stations) of evaluateFindings(plan, state, nets) are exactly those of that idle
+ * evaluation and of these: no event changes which leads are joined, so only a line held aside (its lamp lit by the
+ * hold bridge, not by its A-lead) and an intercom call sounding the wrong sets can add one. The findings returned
+ * are the ones evaluateFindings returns for them.
+ */
+export function eventFindings(plan: Plan, state: SimState, nets: StateNets): Finding[] {
+  const calling = state.intercom.calling;
+  let heldAside = false;
+  for (const ls of state.lines) if (ls.circuit === 'held' && ls.heldWithoutSelection) heldAside = true;
+  if (!heldAside && !calling) return [];
+  const nl = getNetlist(plan);
+  const { mech, facts } = nets;
+  const lineStates = lineStatesOf(nl, state);
+  const c: Context = { nl, state, mech, facts, lineStates, paths: false };
+  const lines: LineFacts[] = new Array(nl.lines.length);
+  for (let i = 0; i < nl.lines.length; i++) {
+    lines[i] = {
+      line: nl.lines[i].number,
+      status: lineStatus(c, i),
+      aClosed: facts.aClosed[i],
+      far: lineStates[i]?.far.phase ?? 'idle',
+      joinedWith: [],
+    };
+  }
+  return dynamicFindings(c, lines, calling ? buzzersOn(nl, state, facts) : [], true);
+}
+
+/** eventsOnly: the findings a KSU event can add (see eventFindings); the others are left out. */
+function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[], eventsOnly = false): Finding[] {
   const { nl, mech, facts } = c;
   const out: Finding[] = [];
   const finder = c.paths ? new PathFinder(nl, mech, facts.roots) : null;
@@ -327,6 +358,75 @@ function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[]): F
     active[si] = isActive(mech, si);
   }
 
+  if (!eventsOnly) mechanicalFindings(c, lines, selected, active, out, path, finder);
+
+  // LINE_LIT_UNATTENDED
+  for (let i = 0; i < lines.length; i++) {
+    const obs = lines[i];
+    const ls = c.lineStates[i];
+    const heldAside = obs.status === 'held' && !!ls?.heldWithoutSelection;
+    if (!obs.aClosed && !heldAside) continue;
+    let attended = false;
+    for (let si = 0; si < nSets && !attended; si++) attended = active[si] && selected[si].includes(obs.line);
+    const litByA = obs.aClosed && !attended;
+    if (!litByA && !heldAside) continue;
+    if (eventsOnly && litByA) continue;
+    const latched = nl.sets.filter(
+      (s) => mech.pressedKey[s.index] > 0 && selected[s.index].includes(obs.line),
+    );
+    const p = litByA ? path(nl.lines[i].a, nl.gnd) : null;
+    const why = litByA
+      ? `its A-lead is grounded though no set in use has selected it${p ? describeVia(c, p) : ''}`
+      : 'it went on hold though the set that pressed hold had not selected it';
+    out.push({
+      code: 'LINE_LIT_UNATTENDED',
+      severity: 'fault',
+      sets: latched.map((s) => s.id),
+      lines: [obs.line],
+      stations: [],
+      message: `Line ${obs.line} is lit with nobody on it: ${why}.`,
+      path: p && finder ? finder.hopsOf(p) : [],
+    });
+  }
+
+  // INTERCOM_SOUNDS_SEVERAL
+  const calling = c.state.intercom.calling;
+  const station = calling ? nl.stations.find((s) => s.id === calling) : undefined;
+  if (station) {
+    const sounding = nl.sets.filter((s) => buzzerOn[s.index]);
+    const extra = sounding.filter((s) => s.station !== station.id);
+    // A lone unassigned set answering the only call it can hear is not a fault.
+    const misdirected =
+      extra.length > 0 && (sounding.length > 1 || extra.some((s) => s.station !== undefined));
+    if (misdirected) {
+      const buzzer = nl.elements.find((e) => e.kind === 'buzzer' && e.owner === extra[0].index);
+      const p = buzzer ? (path(station.t, buzzer.a) ?? path(station.t, buzzer.b)) : null;
+      out.push({
+        code: 'INTERCOM_SOUNDS_SEVERAL',
+        severity: 'fault',
+        sets: sounding.map((s) => s.id),
+        lines: [],
+        stations: [station.id],
+        message: intercomMessage(c, station.code, sounding, extra, p),
+        path: p && finder ? finder.hopsOf(p) : [],
+      });
+    }
+  }
+  finder?.release();
+  return out;
+}
+
+/** Lines joined, sets hearing several or unselected lines, break-ins: what the sets' positions alone decide. */
+function mechanicalFindings(
+  c: Context,
+  lines: LineFacts[],
+  selected: number[][],
+  active: boolean[],
+  out: Finding[],
+  path: (from: number, to: number) => TerminalPath | null,
+  finder: PathFinder | null,
+): void {
+  const { nl, mech, facts } = c;
   // LINES_JOINED: one finding per group of joined lines.
   const seen = new Set<number>();
   lines.forEach((obs, i) => {
@@ -410,58 +510,6 @@ function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[]): F
     }
   }
 
-  // LINE_LIT_UNATTENDED
-  for (let i = 0; i < lines.length; i++) {
-    const obs = lines[i];
-    const ls = c.lineStates[i];
-    const heldAside = obs.status === 'held' && !!ls?.heldWithoutSelection;
-    if (!obs.aClosed && !heldAside) continue;
-    let attended = false;
-    for (let si = 0; si < nSets && !attended; si++) attended = active[si] && selected[si].includes(obs.line);
-    const litByA = obs.aClosed && !attended;
-    if (!litByA && !heldAside) continue;
-    const latched = nl.sets.filter(
-      (s) => mech.pressedKey[s.index] > 0 && selected[s.index].includes(obs.line),
-    );
-    const p = litByA ? path(nl.lines[i].a, nl.gnd) : null;
-    const why = litByA
-      ? `its A-lead is grounded though no set in use has selected it${p ? describeVia(c, p) : ''}`
-      : 'it went on hold though the set that pressed hold had not selected it';
-    out.push({
-      code: 'LINE_LIT_UNATTENDED',
-      severity: 'fault',
-      sets: latched.map((s) => s.id),
-      lines: [obs.line],
-      stations: [],
-      message: `Line ${obs.line} is lit with nobody on it: ${why}.`,
-      path: p && finder ? finder.hopsOf(p) : [],
-    });
-  }
-
-  // INTERCOM_SOUNDS_SEVERAL
-  const calling = c.state.intercom.calling;
-  const station = calling ? nl.stations.find((s) => s.id === calling) : undefined;
-  if (station) {
-    const sounding = nl.sets.filter((s) => buzzerOn[s.index]);
-    const extra = sounding.filter((s) => s.station !== station.id);
-    // A lone unassigned set answering the only call it can hear is not a fault.
-    const misdirected =
-      extra.length > 0 && (sounding.length > 1 || extra.some((s) => s.station !== undefined));
-    if (misdirected) {
-      const buzzer = nl.elements.find((e) => e.kind === 'buzzer' && e.owner === extra[0].index);
-      const p = buzzer ? (path(station.t, buzzer.a) ?? path(station.t, buzzer.b)) : null;
-      out.push({
-        code: 'INTERCOM_SOUNDS_SEVERAL',
-        severity: 'fault',
-        sets: sounding.map((s) => s.id),
-        lines: [],
-        stations: [station.id],
-        message: intercomMessage(c, station.code, sounding, extra, p),
-        path: p && finder ? finder.hopsOf(p) : [],
-      });
-    }
-  }
-  return out;
 }
 
 /** A terminal of the set's (or its add-on's) speech network that is on a line, for path tracing. */

@@ -1,7 +1,7 @@
 /** Conductor paths: breadth-first search over wires and (optionally) the contacts closed in one state. */
 import { pairColour } from '../document/cable-code';
 import type { Netlist, PartInfo } from '../model/netlist';
-import { isContactClosed, type Mech } from '../model/nets';
+import { contactClosed, isContactClosed, type Mech } from '../model/nets';
 import type { LeadSpec } from '../templates/template.types';
 import type { Hop } from './evaluation.types';
 
@@ -9,6 +9,12 @@ interface Adjacency {
   offset: Int32Array;
   to: Int32Array;
   edge: Int32Array;
+  /** Per adjacency slot: the contact the edge is (index into netlist.contacts), or -1 for a wire. */
+  contact: Int32Array;
+  /** Per contact: condition, owning set and key (as in ContactInfo), for the closed test without objects. */
+  cond: Int32Array;
+  mech: Int32Array;
+  key: Int32Array;
 }
 
 const adjacencyCache = new WeakMap<Netlist, Adjacency>();
@@ -27,15 +33,55 @@ function adjacency(nl: Netlist): Adjacency {
   const fill = degree.slice();
   const to = new Int32Array(nl.edges.length * 2);
   const edge = new Int32Array(nl.edges.length * 2);
+  const contact = new Int32Array(nl.edges.length * 2);
   nl.edges.forEach((e, i) => {
+    const c = e.kind === 'contact' ? e.contact! : -1;
     to[fill[e.a]] = e.b;
+    contact[fill[e.a]] = c;
     edge[fill[e.a]++] = i;
     to[fill[e.b]] = e.a;
+    contact[fill[e.b]] = c;
     edge[fill[e.b]++] = i;
   });
-  adj = { offset, to, edge };
+  adj = {
+    offset,
+    to,
+    edge,
+    contact,
+    cond: Int32Array.from(nl.contacts, (c) => c.cond),
+    mech: Int32Array.from(nl.contacts, (c) => c.mech),
+    key: Int32Array.from(nl.contacts, (c) => c.key),
+  };
   adjacencyCache.set(nl, adj);
   return adj;
+}
+
+/**
+ * Scratch arrays for a PathFinder, one per terminal. The breadth-first trees of one finder never share a terminal
+ * (each stays inside its own net), so they share prev / prevEdge; a finder hands them back cleared (release), and
+ * the next finder on the netlist takes them instead of allocating.
+ */
+interface Scratch {
+  prev: Int32Array;
+  prevEdge: Int32Array;
+  mark: Int32Array;
+  position: Int32Array;
+  stamp: number;
+}
+
+const scratchPool = new WeakMap<Netlist, Scratch[]>();
+
+function takeScratch(nl: Netlist): Scratch {
+  const pooled = scratchPool.get(nl)?.pop();
+  if (pooled) return pooled;
+  const n = nl.terminals.length;
+  return {
+    prev: new Int32Array(n).fill(-1),
+    prevEdge: new Int32Array(n).fill(-1),
+    mark: new Int32Array(n),
+    position: new Int32Array(n),
+    stamp: 0,
+  };
 }
 
 export interface TerminalPath {
@@ -83,6 +129,7 @@ export class PathFinder {
   private readonly trees = new Map<number, Tree>();
   private readonly paths = new Map<string, TerminalPath | null>();
   private readonly hops = new Map<TerminalPath, Hop[]>();
+  private scratch: Scratch | null = null;
 
   /**
    * roots: the state's dense-component roots (from computeFacts), so the search stays inside the source's net;
@@ -103,31 +150,58 @@ export class PathFinder {
   }
 
   /**
+   * Hands the scratch arrays back for the next finder. Paths and hops already returned stay valid; the finder
+   * must not be asked for new paths afterwards.
+   */
+  release(): void {
+    const sc = this.scratch;
+    if (!sc) return;
+    this.scratch = null;
+    const { prev, prevEdge } = sc;
+    for (const tree of this.trees.values()) {
+      const { queue } = tree;
+      for (let i = 0; i < tree.tail; i++) {
+        prev[queue[i]] = -1;
+        prevEdge[queue[i]] = -1;
+      }
+    }
+    this.trees.clear();
+    let pool = scratchPool.get(this.nl);
+    if (!pool) {
+      pool = [];
+      scratchPool.set(this.nl, pool);
+    }
+    pool.push(sc);
+  }
+
+  /**
    * One breadth-first tree per net, rooted at the first terminal asked for in it; a path between two terminals of
    * the net runs up the tree from one to their lowest common ancestor and down to the other.
    */
   private trace(from: number, to: number): TerminalPath | null {
     const net = this.netOf(from);
     if (net !== this.netOf(to)) return null;
+    const sc = (this.scratch ??= takeScratch(this.nl));
+    const { prev, prevEdge } = sc;
     let tree = this.trees.get(net);
     if (!tree) {
-      tree = newTree(this.nl.terminals.length, from);
+      prev[from] = from;
+      tree = { queue: [from], head: 0, tail: 1 };
       this.trees.set(net, tree);
     }
-    this.growUntil(tree, from, net);
-    this.growUntil(tree, to, net);
-    const { prev, prevEdge } = tree;
+    this.growUntil(tree, from, net, prev, prevEdge);
+    this.growUntil(tree, to, net, prev, prevEdge);
     if (prev[from] === -1 || prev[to] === -1) return null;
     const upFrom: number[] = [from];
     for (let t = from; prev[t] !== t; t = prev[t]) upFrom.push(prev[t]);
-    this.stamp++;
-    const { mark, position } = this.scratch();
+    const stamp = ++sc.stamp;
+    const { mark, position } = sc;
     for (let i = 0; i < upFrom.length; i++) {
-      mark[upFrom[i]] = this.stamp;
+      mark[upFrom[i]] = stamp;
       position[upFrom[i]] = i;
     }
     const upTo: number[] = [to];
-    for (let t = to; mark[t] !== this.stamp; t = prev[t]) upTo.push(prev[t]);
+    for (let t = to; mark[t] !== stamp; t = prev[t]) upTo.push(prev[t]);
     const meet = position[upTo[upTo.length - 1]];
     const terms = upFrom.slice(0, meet + 1);
     const edges: number[] = [];
@@ -137,14 +211,6 @@ export class PathFinder {
       edges.push(prevEdge[upTo[i]]);
     }
     return { terms, edges };
-  }
-
-  private stamp = 0;
-  private marks: { mark: Int32Array; position: Int32Array } | null = null;
-
-  private scratch(): { mark: Int32Array; position: Int32Array } {
-    const n = this.nl.terminals.length;
-    return (this.marks ??= { mark: new Int32Array(n), position: new Int32Array(n) });
   }
 
   private netOf(t: number): number {
@@ -166,43 +232,35 @@ export class PathFinder {
   }
 
   /** Breadth-first, resumable: grow the tree only until the target is reached. */
-  private growUntil(tree: Tree, target: number, net: number): void {
+  private growUntil(tree: Tree, target: number, net: number, prev: Int32Array, prevEdge: Int32Array): void {
     const { nl, mech } = this;
-    const adj = adjacency(nl);
-    const { prev, prevEdge, queue } = tree;
+    const { offset, to, edge, contact, cond, mech: owner, key } = adjacency(nl);
+    const { queue } = tree;
     const { dense, staticRoot } = nl;
     const roots = this.roots;
     while (prev[target] === -1 && tree.head < tree.tail) {
       const t = queue[tree.head++];
-      for (let k = adj.offset[t]; k < adj.offset[t + 1]; k++) {
-        const next = adj.to[k];
+      for (let k = offset[t]; k < offset[t + 1]; k++) {
+        const next = to[k];
         if (prev[next] !== -1) continue;
         // A path between two terminals never leaves their net.
         if (roots ? dense[next] < 0 || roots[dense[next]] !== net : staticRoot[next] !== net) continue;
-        const e = nl.edges[adj.edge[k]];
-        if (e.kind === 'contact' && (!mech || !isContactClosed(nl.contacts[e.contact!], mech))) continue;
+        const c = contact[k];
+        if (c >= 0 && (!mech || !contactClosed(cond[c], owner[c], key[c], mech))) continue;
         prev[next] = t;
-        prevEdge[next] = adj.edge[k];
-        queue[tree.tail++] = next;
+        prevEdge[next] = edge[k];
+        queue.push(next);
+        tree.tail++;
       }
     }
   }
 }
 
 interface Tree {
-  prev: Int32Array;
-  prevEdge: Int32Array;
-  queue: Int32Array;
+  /** Terminals in breadth-first order; head: the next to expand. */
+  queue: number[];
   head: number;
   tail: number;
-}
-
-function newTree(n: number, from: number): Tree {
-  const prev = new Int32Array(n).fill(-1);
-  const queue = new Int32Array(n);
-  prev[from] = from;
-  queue[0] = from;
-  return { prev, prevEdge: new Int32Array(n).fill(-1), queue, head: 0, tail: 1 };
 }
 
 const KSU_LEAD_NAMES: Record<string, string> = { T: 'tip', R: 'ring', A: 'A-lead', L: 'lamp lead' };

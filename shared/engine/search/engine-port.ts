@@ -3,7 +3,13 @@
  * Imports point at the core's modules (not ../index) so that index.ts can re-export search/ without a cycle.
  */
 export { applyAction, initialState } from '../sim/actions';
-export { evaluate, evaluateWithNets, evaluateFindings, computeNets } from '../observe/evaluate';
+export {
+  evaluate,
+  evaluateWithNets,
+  evaluateFindings,
+  eventFindings,
+  computeNets,
+} from '../observe/evaluate';
 export { getTemplate, TEMPLATES } from '../templates/part-templates';
 export { standardCrossConnect, effectiveCrossConnect } from '../model/cross-connect';
 export { applyLeadChanges } from '../model/netlist';

@@ -7,6 +7,7 @@ import {
   computeNets,
   evaluate,
   evaluateFindings,
+  eventFindings,
   getTemplate,
   initialState,
   type Finding,
@@ -337,6 +338,8 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
     seenOpenings.add(key);
     openings.push({ event, actions, state, size: eventSize(event) });
   }
+  // sweepEvents puts 'none' first: the opening with no event is initialState itself.
+  const idleFirst = openings.length > 0 && openings[0].size === 0;
   const withEvents = planned.combinations - planned.withoutEvents;
   const planTotal = withEvents * openings.length + planned.withoutEvents;
   const total = Math.min(planTotal, limit);
@@ -377,8 +380,12 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
       // Moving from idle only closes contacts, so no line changes circuit on the way: the opening's line states
       // with the sets in place show the same findings as the settled state (the tests check this against exact
       // mode). The kept states are replayed exactly below.
+      // The idle opening (the first) gives every finding the sets' positions decide, at the smallest size any
+      // opening has; the others are asked only for what their event adds (eventFindings).
       const found = nets
-        ? evaluateFindings(plan, { ...opening.state, sets }, nets)
+        ? o === 0 || !idleFirst
+          ? evaluateFindings(plan, { ...opening.state, sets }, nets)
+          : eventFindings(plan, { ...opening.state, sets }, nets)
         : evaluate(plan, applyAll(plan, opening.state, actions!), { paths: false }).findings;
       visited++;
       const size = opening.size + comboSize;
