@@ -66,6 +66,17 @@ export const FINDING_CODES: readonly FindingCode[] = [
   'PRIVATE_LEAD_SHARED',
 ];
 
+/** Short names of the finding kinds, for lists, filters and work sheets. */
+export const FINDING_TITLES: Readonly<Record<FindingCode, string>> = {
+  LINES_JOINED: 'Lines joined',
+  SET_HEARS_SEVERAL_LINES: 'Set hears several lines',
+  SET_HEARS_UNSELECTED_LINE: 'Set hears a line it did not select',
+  LINE_LIT_UNATTENDED: 'Line lit with nobody on it',
+  BREAK_IN: 'Break-in on a call',
+  INTERCOM_SOUNDS_SEVERAL: 'Intercom call buzzes several sets',
+  PRIVATE_LEAD_SHARED: "Set's private leads shared",
+};
+
 /** One step along a conductor path. */
 export interface Hop {
   part: string;

@@ -298,13 +298,13 @@ function describeTerminal(nl: Netlist, term: number): string {
   return `${part.name}, terminal ${t.name}${d && d !== t.name ? ` (${d})` : ''}`;
 }
 
-const hopCache = new WeakMap<Netlist, Map<number, Hop>>();
+const hopCache = new WeakMap<Netlist, (Map<number, Hop> | undefined)[]>();
 
 /** Hops depend only on the terminal and the wire or contact that reached it, so they are made once per netlist. */
 export function toHops(nl: Netlist, path: TerminalPath): Hop[] {
   let cache = hopCache.get(nl);
   if (!cache) {
-    cache = new Map();
+    cache = new Array<Map<number, Hop> | undefined>(nl.terminals.length);
     hopCache.set(nl, cache);
   }
   const stride = nl.edges.length + 1;
@@ -313,11 +313,13 @@ export function toHops(nl: Netlist, path: TerminalPath): Hop[] {
     const via = i > 0 ? path.edges[i - 1] : -1;
     const next = i < path.edges.length ? path.edges[i] : -1;
     // The hop of a part terminal also names the pair of an adjacent lead, so the next edge is part of the key.
-    const key = (path.terms[i] * stride + via + 1) * stride + next + 1;
-    let hop = cache.get(key);
+    const term = path.terms[i];
+    const key = (via + 1) * stride + next + 1;
+    const byEdges = (cache[term] ??= new Map());
+    let hop = byEdges.get(key);
     if (!hop) {
       hop = makeHop(nl, path, i);
-      cache.set(key, hop);
+      byEdges.set(key, hop);
     }
     hops[i] = hop;
   }

@@ -74,6 +74,28 @@ describe('SweepPanel', () => {
     expect(store.findings.map((f) => f.code)).toContain(expected.findings[last].finding.code);
   }, 30_000);
 
+  it('shows one kind of finding at a time and keeps each row reproducible', async () => {
+    benchWith(PlanSchema.parse(demo));
+    const t = host();
+    await t.wrapper.get('[data-testid="sweep-run"]').trigger('click');
+    await settle();
+    await nextTick();
+    const all = t.worker.sweepResult.value!.findings;
+    // The demo plan joins lines and shares a buzzer pair (common practice, no published source), so the
+    // sweep finds more than one kind.
+    const joined = all.filter((row) => row.finding.code === 'LINES_JOINED');
+    expect(joined.length).toBeGreaterThan(0);
+    expect(joined.length).toBeLessThan(all.length);
+
+    await t.wrapper.get('[data-testid="sweep-kind-LINES_JOINED"]').trigger('click');
+    const rows = t.wrapper.findAll('[data-testid^="sweep-row-"]');
+    expect(rows).toHaveLength(joined.length);
+    expect(rows.every((r) => r.attributes('data-testid') === 'sweep-row-LINES_JOINED')).toBe(true);
+    // Row buttons keep the finding's place in the whole result.
+    const first = all.findIndex((row) => row.finding.code === 'LINES_JOINED');
+    expect(rows[0].find(`[data-testid="sweep-show-${first}"]`).exists()).toBe(true);
+  }, 30_000);
+
   it('cancel stops the worker and ignores its late answer', async () => {
     benchWith(PlanSchema.parse(demo));
     const t = host();
