@@ -227,6 +227,8 @@ interface Layout {
   lampOf: number[][];
   /** Per station: ids of the sets assigned to it. */
   assigned: string[][];
+  /** Per set: element indices of the speech networks it hears through, in element order. */
+  networksOf: number[][];
 }
 
 const layouts = new WeakMap<Netlist, Layout>();
@@ -239,7 +241,11 @@ function layoutOf(nl: Netlist): Layout {
       if (e.kind === 'lamp' && e.owner >= 0 && e.key !== undefined) lampOf[e.owner][e.key] = k;
     });
     const assigned = nl.stations.map((st) => nl.sets.filter((s) => s.station === st.id).map((s) => s.id));
-    layout = { lampOf, assigned };
+    const networksOf: number[][] = nl.sets.map(() => []);
+    nl.elements.forEach((e, k) => {
+      if (e.kind === 'network' && e.owner >= 0) networksOf[e.owner].push(k);
+    });
+    layout = { lampOf, assigned, networksOf };
     layouts.set(nl, layout);
   }
   return layout;
@@ -323,10 +329,8 @@ export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): 
  * are the ones evaluateFindings returns for them.
  */
 export function eventFindings(plan: Plan, state: SimState, nets: StateNets): Finding[] {
+  if (!eventMayAddFindings(state)) return [];
   const calling = state.intercom.calling;
-  let heldAside = false;
-  for (const ls of state.lines) if (ls.circuit === 'held' && ls.heldWithoutSelection) heldAside = true;
-  if (!heldAside && !calling) return [];
   const nl = getNetlist(plan);
   const { mech, facts } = nets;
   const lineStates = lineStatesOf(nl, state);
@@ -344,12 +348,18 @@ export function eventFindings(plan: Plan, state: SimState, nets: StateNets): Fin
   return dynamicFindings(c, lines, calling ? buzzersOn(nl, state, facts) : [], true);
 }
 
+/** False when eventFindings is empty whatever the sets do: no line held aside and no intercom call. */
+export function eventMayAddFindings(state: Pick<SimState, 'lines' | 'intercom'>): boolean {
+  if (state.intercom.calling) return true;
+  for (const ls of state.lines) if (ls.circuit === 'held' && ls.heldWithoutSelection) return true;
+  return false;
+}
+
 /** eventsOnly: the findings a KSU event can add (see eventFindings); the others are left out. */
 function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[], eventsOnly = false): Finding[] {
   const { nl, mech, facts } = c;
   const out: Finding[] = [];
   const finder = c.paths ? new PathFinder(nl, mech, facts.roots) : null;
-  const path = (from: number, to: number): TerminalPath | null => (finder ? finder.path(from, to) : null);
   const nSets = nl.sets.length;
   const selected: number[][] = new Array(nSets);
   const active: boolean[] = new Array(nSets);
@@ -358,7 +368,7 @@ function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[], ev
     active[si] = isActive(mech, si);
   }
 
-  if (!eventsOnly) mechanicalFindings(c, lines, selected, active, out, path, finder);
+  if (!eventsOnly) mechanicalFindings(c, lines, selected, active, out, finder);
 
   // LINE_LIT_UNATTENDED
   for (let i = 0; i < lines.length; i++) {
@@ -374,7 +384,7 @@ function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[], ev
     const latched = nl.sets.filter(
       (s) => mech.pressedKey[s.index] > 0 && selected[s.index].includes(obs.line),
     );
-    const p = litByA ? path(nl.lines[i].a, nl.gnd) : null;
+    const p = litByA ? pathIn(finder, nl.lines[i].a, nl.gnd) : null;
     const why = litByA
       ? `its A-lead is grounded though no set in use has selected it${p ? describeVia(c, p) : ''}`
       : 'it went on hold though the set that pressed hold had not selected it';
@@ -400,7 +410,7 @@ function dynamicFindings(c: Context, lines: LineFacts[], buzzerOn: boolean[], ev
       extra.length > 0 && (sounding.length > 1 || extra.some((s) => s.station !== undefined));
     if (misdirected) {
       const buzzer = nl.elements.find((e) => e.kind === 'buzzer' && e.owner === extra[0].index);
-      const p = buzzer ? (path(station.t, buzzer.a) ?? path(station.t, buzzer.b)) : null;
+      const p = buzzer ? (pathIn(finder, station.t, buzzer.a) ?? pathIn(finder, station.t, buzzer.b)) : null;
       out.push({
         code: 'INTERCOM_SOUNDS_SEVERAL',
         severity: 'fault',
@@ -423,7 +433,6 @@ function mechanicalFindings(
   selected: number[][],
   active: boolean[],
   out: Finding[],
-  path: (from: number, to: number) => TerminalPath | null,
   finder: PathFinder | null,
 ): void {
   const { nl, mech, facts } = c;
@@ -438,7 +447,7 @@ function mechanicalFindings(
     );
     const j = nl.lines.findIndex((l) => l.number === group.find((n) => n !== obs.line));
     const sameTip = facts.rootT[i] === facts.rootT[j];
-    const p = path(sameTip ? nl.lines[i].t : nl.lines[i].r, sameTip ? nl.lines[j].t : nl.lines[j].r);
+    const p = pathIn(finder, sameTip ? nl.lines[i].t : nl.lines[i].r, sameTip ? nl.lines[j].t : nl.lines[j].r);
     let how = involved.length ? ` through ${involved.map((s) => s.name).join(' and ')}` : '';
     if (p) {
       const crossing = firstCrossing(nl, p);
@@ -459,10 +468,10 @@ function mechanicalFindings(
     const heard = facts.hears[s.index];
     if (!heard.length) continue;
     const heardNumbers = heard.map((i) => nl.lines[i].number);
-    const networkTip = networkTerminal(c, s.index);
+    const networkTip = finder ? networkTerminal(c, s.index) : -1;
     if (heard.length > 1) {
       const stray = heard.find((i) => !selected[s.index].includes(nl.lines[i].number)) ?? heard[1];
-      const p = networkTip >= 0 ? path(nl.lines[stray].t, networkTip) : null;
+      const p = networkTip >= 0 ? pathIn(finder, nl.lines[stray].t, networkTip) : null;
       out.push({
         code: 'SET_HEARS_SEVERAL_LINES',
         severity: 'fault',
@@ -476,7 +485,7 @@ function mechanicalFindings(
     for (const i of heard) {
       const line = nl.lines[i].number;
       if (selected[s.index].includes(line)) continue;
-      const p = networkTip >= 0 ? path(nl.lines[i].t, networkTip) : null;
+      const p = networkTip >= 0 ? pathIn(finder, nl.lines[i].t, networkTip) : null;
       const keyText =
         mech.pressedKey[s.index] > 0
           ? `with line key ${selected[s.index].join(', ')} down`
@@ -512,14 +521,21 @@ function mechanicalFindings(
 
 }
 
+/** The conductor path between two terminals in this state, when paths are traced. */
+function pathIn(finder: PathFinder | null, from: number, to: number): TerminalPath | null {
+  return finder ? finder.path(from, to) : null;
+}
+
 /** A terminal of the set's (or its add-on's) speech network that is on a line, for path tracing. */
 function networkTerminal(c: Context, setIndex: number): number {
-  for (const e of c.nl.elements) {
-    if (e.kind !== 'network' || e.owner !== setIndex) continue;
-    const ra = c.facts.roots[c.nl.dense[e.a]];
-    if (c.facts.rootT.includes(ra)) return e.a;
-    const rb = c.facts.roots[c.nl.dense[e.b]];
-    if (c.facts.rootT.includes(rb)) return e.b;
+  const { elements, dense } = c.nl;
+  const { roots, rootT } = c.facts;
+  for (const k of layoutOf(c.nl).networksOf[setIndex]) {
+    const e = elements[k];
+    const ra = roots[dense[e.a]];
+    if (rootT.includes(ra)) return e.a;
+    const rb = roots[dense[e.b]];
+    if (rootT.includes(rb)) return e.b;
   }
   return -1;
 }

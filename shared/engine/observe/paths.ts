@@ -130,6 +130,7 @@ export class PathFinder {
   private readonly paths = new Map<string, TerminalPath | null>();
   private readonly hops = new Map<TerminalPath, Hop[]>();
   private scratch: Scratch | null = null;
+  private readonly adj: Adjacency;
 
   /**
    * roots: the state's dense-component roots (from computeFacts), so the search stays inside the source's net;
@@ -139,7 +140,9 @@ export class PathFinder {
     private readonly nl: Netlist,
     private readonly mech: Mech | null,
     private readonly roots: Int32Array | null,
-  ) {}
+  ) {
+    this.adj = adjacency(nl);
+  }
 
   path(from: number, to: number): TerminalPath | null {
     const key = `${from}>${to}`;
@@ -160,7 +163,7 @@ export class PathFinder {
     const { prev, prevEdge } = sc;
     for (const tree of this.trees.values()) {
       const { queue } = tree;
-      for (let i = 0; i < tree.tail; i++) {
+      for (let i = 0; i < queue.length; i++) {
         prev[queue[i]] = -1;
         prevEdge[queue[i]] = -1;
       }
@@ -186,7 +189,7 @@ export class PathFinder {
     let tree = this.trees.get(net);
     if (!tree) {
       prev[from] = from;
-      tree = { queue: [from], head: 0, tail: 1 };
+      tree = { queue: [from], head: 0 };
       this.trees.set(net, tree);
     }
     this.growUntil(tree, from, net, prev, prevEdge);
@@ -233,26 +236,32 @@ export class PathFinder {
 
   /** Breadth-first, resumable: grow the tree only until the target is reached. */
   private growUntil(tree: Tree, target: number, net: number, prev: Int32Array, prevEdge: Int32Array): void {
+    if (prev[target] !== -1) return;
     const { nl, mech } = this;
-    const { offset, to, edge, contact, cond, mech: owner, key } = adjacency(nl);
+    const { offset, to, edge, contact, cond, mech: owner, key } = this.adj;
     const { queue } = tree;
     const { dense, staticRoot } = nl;
     const roots = this.roots;
-    while (prev[target] === -1 && tree.head < tree.tail) {
-      const t = queue[tree.head++];
-      for (let k = offset[t]; k < offset[t + 1]; k++) {
+    let head = tree.head;
+    while (prev[target] === -1 && head < queue.length) {
+      const t = queue[head++];
+      const end = offset[t + 1];
+      for (let k = offset[t]; k < end; k++) {
         const next = to[k];
         if (prev[next] !== -1) continue;
         // A path between two terminals never leaves their net.
-        if (roots ? dense[next] < 0 || roots[dense[next]] !== net : staticRoot[next] !== net) continue;
+        if (roots !== null) {
+          const d = dense[next];
+          if (d < 0 || roots[d] !== net) continue;
+        } else if (staticRoot[next] !== net) continue;
         const c = contact[k];
-        if (c >= 0 && (!mech || !contactClosed(cond[c], owner[c], key[c], mech))) continue;
+        if (c >= 0 && (mech === null || !contactClosed(cond[c], owner[c], key[c], mech))) continue;
         prev[next] = t;
         prevEdge[next] = edge[k];
         queue.push(next);
-        tree.tail++;
       }
     }
+    tree.head = head;
   }
 }
 
@@ -260,7 +269,6 @@ interface Tree {
   /** Terminals in breadth-first order; head: the next to expand. */
   queue: number[];
   head: number;
-  tail: number;
 }
 
 const KSU_LEAD_NAMES: Record<string, string> = { T: 'tip', R: 'ring', A: 'A-lead', L: 'lamp lead' };
@@ -369,9 +377,12 @@ export interface Crossing {
   through: string[];
 }
 
+function isUnit(p: PartInfo): boolean {
+  return p.kind === 'set' || p.kind === 'add-on';
+}
+
 /** The first place a path leaves one set (or add-on) by its cord and enters another without passing the KSU. */
 export function firstCrossing(nl: Netlist, path: TerminalPath): Crossing | null {
-  const isUnit = (p: PartInfo) => p.kind === 'set' || p.kind === 'add-on';
   let lastUnit = -1;
   for (let i = 0; i < path.terms.length; i++) {
     const t = nl.terminals[path.terms[i]];

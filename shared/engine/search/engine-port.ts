@@ -8,6 +8,7 @@ export {
   evaluateWithNets,
   evaluateFindings,
   eventFindings,
+  eventMayAddFindings,
   computeNets,
 } from '../observe/evaluate';
 export { getTemplate, TEMPLATES } from '../templates/part-templates';

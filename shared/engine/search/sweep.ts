@@ -8,6 +8,7 @@ import {
   evaluate,
   evaluateFindings,
   eventFindings,
+  eventMayAddFindings,
   getTemplate,
   initialState,
   type Finding,
@@ -262,6 +263,8 @@ export function findingKey(f: Pick<Finding, 'code' | 'sets' | 'lines' | 'station
   return `${f.code}|${sortedText(f.sets)}|${sortedText(f.lines)}|${sortedText(f.stations)}`;
 }
 
+const NONE: readonly Finding[] = [];
+
 function applyAll(plan: Plan, state: SimState, actions: readonly SimAction[]): SimState {
   let s = state;
   for (const a of actions) s = applyAction(plan, s, a);
@@ -329,14 +332,21 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
 
   // Each event's opening state, built once; events that leave the plan where 'none' does are skipped.
   const seenOpenings = new Set<string>();
-  const openings: { event: SweepEvent; actions: SimAction[]; state: SimState; size: number }[] = [];
+  const openings: {
+    event: SweepEvent;
+    actions: SimAction[];
+    state: SimState;
+    size: number;
+    /** Whether the event can add findings to the idle opening's (eventMayAddFindings). */
+    mayAdd: boolean;
+  }[] = [];
   for (const event of events) {
     const actions = eventActions(plan, event);
     const state = applyAll(plan, start, actions);
     const key = JSON.stringify(state);
     if (seenOpenings.has(key)) continue;
     seenOpenings.add(key);
-    openings.push({ event, actions, state, size: eventSize(event) });
+    openings.push({ event, actions, state, size: eventSize(event), mayAdd: eventMayAddFindings(state) });
   }
   // sweepEvents puts 'none' first: the opening with no event is initialState itself.
   const idleFirst = openings.length > 0 && openings[0].size === 0;
@@ -385,7 +395,9 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
       const found = nets
         ? o === 0 || !idleFirst
           ? evaluateFindings(plan, { ...opening.state, sets }, nets)
-          : eventFindings(plan, { ...opening.state, sets }, nets)
+          : opening.mayAdd
+            ? eventFindings(plan, { ...opening.state, sets }, nets)
+            : NONE
         : evaluate(plan, applyAll(plan, opening.state, actions!), { paths: false }).findings;
       visited++;
       const size = opening.size + comboSize;
@@ -400,13 +412,26 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
   }
   opts.onProgress?.(visited, total);
 
-  // The kept states, reached by their actions, evaluated once more in full for paths and sentences.
+  // The kept states, reached by their actions, evaluated once more in full for paths and sentences. The opening's
+  // state is its actions applied to the start already; findings that share a state share its evaluation.
   const kept: SweptFinding[] = [];
+  const evaluated = new Map<string, Map<string, Finding>>();
   for (const [key, entry] of best) {
     const opening = openings[entry.opening];
-    const actions = [...opening.actions, ...comboActions(entry.combo)];
-    const state = applyAll(plan, start, actions);
-    const full = evaluate(plan, state).findings.find((f) => findingKey(f) === key);
+    const moves = comboActions(entry.combo);
+    const actions = [...opening.actions, ...moves];
+    const state = applyAll(plan, opening.state, moves);
+    const stateKey = `${entry.opening}|${entry.combo.join(',')}`;
+    let byKey = evaluated.get(stateKey);
+    if (!byKey) {
+      byKey = new Map();
+      for (const f of evaluate(plan, state).findings) {
+        const k = findingKey(f);
+        if (!byKey.has(k)) byKey.set(k, f);
+      }
+      evaluated.set(stateKey, byKey);
+    }
+    const full = byKey.get(key);
     kept.push({
       finding: full ?? entry.finding,
       state,
