@@ -202,7 +202,9 @@ export function buildNetlist(plan: Plan): Netlist {
         if (Number.isInteger(pin) && pin >= 1 && pin <= PIN_COUNT) {
           info.port = name.slice(0, colon);
           info.pin = pin;
-          Object.assign(info, pinToPair(pin));
+          const { pair, conductor } = pinToPair(pin);
+          info.pair = pair;
+          info.conductor = conductor;
         }
       }
       terminals.push(info);
@@ -210,7 +212,19 @@ export function buildNetlist(plan: Plan): Netlist {
     }
     return id;
   };
-  const pinTerm = (part: number, port: string, pin: number) => term(part, `${port}:${pin}`);
+  // Connector pins are asked for often (every cable, bridge and lead): their ids are kept per part and port.
+  const pinIds: (Map<string, Int32Array> | undefined)[] = [];
+  const pinTerm = (part: number, port: string, pin: number): number => {
+    if (!(pin >= 1 && pin <= PIN_COUNT)) return term(part, `${port}:${pin}`);
+    const byPort = (pinIds[part] ??= new Map());
+    let ids = byPort.get(port);
+    if (!ids) {
+      ids = new Int32Array(PIN_COUNT + 1).fill(-1);
+      byPort.set(port, ids);
+    }
+    if (ids[pin] < 0) ids[pin] = term(part, `${port}:${pin}`);
+    return ids[pin];
+  };
 
   const edges: Edge[] = [];
   const contactEdges: Edge[] = [];

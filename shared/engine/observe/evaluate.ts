@@ -1,7 +1,7 @@
 /** Observations and findings for one plan in one state: (plan, state) → nets → observations → findings. */
 import { pairColour } from '../document/cable-code';
 import type { Plan } from '../document/plan.schema';
-import { getNetlist, type Netlist } from '../model/netlist';
+import { getNetlist, type Netlist, type SetInfo } from '../model/netlist';
 import { createMech, fillMech, type Mech } from '../model/nets';
 import type { FarPhase, LineState, SimState } from '../sim/state.schema';
 import type {
@@ -49,6 +49,8 @@ interface Context {
   facts: NetFacts;
   lineStates: (LineState | undefined)[];
   paths: boolean;
+  /** describeVia's sentences of this evaluation's paths (findings share paths). */
+  via?: Map<TerminalPath, string>;
 }
 
 function lineStatus(c: Context, i: number): LineStatus {
@@ -81,6 +83,22 @@ export interface StateNets {
 export function computeNets(plan: Plan, state: SimState): StateNets {
   const nl = getNetlist(plan);
   const mech = fillMech(nl, state, createMech(nl));
+  const facts = computeFacts(nl, mech);
+  return { mech, facts: { ...facts, roots: facts.roots.slice() } };
+}
+
+/** A mechanical state buffer for computeNetsInto. */
+export function createMechFor(plan: Plan): Mech {
+  return createMech(getNetlist(plan));
+}
+
+/**
+ * computeNets into a caller's buffer (from createMechFor), for loops that drop one state's nets before computing
+ * the next (the sweep): the result's mech is that buffer, overwritten by the next call.
+ */
+export function computeNetsInto(plan: Plan, state: SimState, mech: Mech): StateNets {
+  const nl = getNetlist(plan);
+  fillMech(nl, state, mech);
   const facts = computeFacts(nl, mech);
   return { mech, facts: { ...facts, roots: facts.roots.slice() } };
 }
@@ -447,7 +465,11 @@ function mechanicalFindings(
     );
     const j = nl.lines.findIndex((l) => l.number === group.find((n) => n !== obs.line));
     const sameTip = facts.rootT[i] === facts.rootT[j];
-    const p = pathIn(finder, sameTip ? nl.lines[i].t : nl.lines[i].r, sameTip ? nl.lines[j].t : nl.lines[j].r);
+    const p = pathIn(
+      finder,
+      sameTip ? nl.lines[i].t : nl.lines[i].r,
+      sameTip ? nl.lines[j].t : nl.lines[j].r,
+    );
     let how = involved.length ? ` through ${involved.map((s) => s.name).join(' and ')}` : '';
     if (p) {
       const crossing = firstCrossing(nl, p);
@@ -464,6 +486,8 @@ function mechanicalFindings(
     });
   });
 
+  // Per line index: the sets on it through their own key, in set order (listeners other than them break in).
+  const onCallByLine: (SetInfo[] | undefined)[] = new Array(nl.lines.length);
   for (const s of nl.sets) {
     const heard = facts.hears[s.index];
     if (!heard.length) continue;
@@ -501,10 +525,10 @@ function mechanicalFindings(
       });
       // Another set is on that line through its own key: this set is listening in on its call.
       const far = lines[i].far;
-      const others = nl.sets.filter(
-        (o) =>
-          o !== s && active[o.index] && selected[o.index].includes(line) && facts.hears[o.index].includes(i),
-      );
+      const onCall = (onCallByLine[i] ??= nl.sets.filter(
+        (o) => active[o.index] && selected[o.index].includes(line) && facts.hears[o.index].includes(i),
+      ));
+      const others = onCall.includes(s) ? onCall.filter((o) => o !== s) : onCall;
       if (!others.length) continue;
       const parties = [...others.map((o) => o.name), ...(TALKING.has(far) ? ['the far party'] : [])];
       out.push({
@@ -518,7 +542,6 @@ function mechanicalFindings(
       });
     }
   }
-
 }
 
 /** The conductor path between two terminals in this state, when paths are traced. */
@@ -540,18 +563,21 @@ function networkTerminal(c: Context, setIndex: number): number {
   return -1;
 }
 
-const viaCache = new WeakMap<TerminalPath, string>();
-
 /** ", because Front's talk pair (CT) on pair 23 … is bridged to …": once per path (findings share paths). */
 function describeVia(c: Context, p: TerminalPath): string {
-  let text = viaCache.get(p);
+  const cache = (c.via ??= new Map());
+  let text = cache.get(p);
   if (text === undefined) {
     const crossing = firstCrossing(c.nl, p);
     const lead = crossing ? null : firstUnitLeadSentence(c.nl, p);
     text = crossing ? `, because ${crossingSentence(crossing)}` : lead ? `, through ${lead}` : '';
-    viaCache.set(p, text);
+    cache.set(p, text);
   }
   return text;
+}
+
+function stationCode(nl: Netlist, id: string): string {
+  return nl.stations.find((st) => st.id === id)?.code ?? id;
 }
 
 function intercomMessage(
@@ -564,8 +590,7 @@ function intercomMessage(
   let text = `An intercom call to station ${code} buzzes ${sounding.map((s) => s.name).join(' and ')}`;
   const elsewhere = extra.filter((s) => s.station !== undefined);
   if (elsewhere.length) {
-    const codeOf = (id: string) => c.nl.stations.find((st) => st.id === id)?.code ?? id;
-    text += `, though ${elsewhere.map((s) => `${s.name} answers station ${codeOf(s.station!)}`).join(' and ')}`;
+    text += `, though ${elsewhere.map((s) => `${s.name} answers station ${stationCode(c.nl, s.station!)}`).join(' and ')}`;
   }
   const pin = p ? p.terms.map((t) => c.nl.terminals[t]).find((t) => t.pair !== undefined) : undefined;
   if (pin?.pair) {

@@ -2,7 +2,7 @@
  * Electrical facts of one state, read off the nets: which A-leads are grounded, which lines have a loop,
  * which set hears which line. Shared by the state machine (applyAction) and the observations (evaluate).
  */
-import type { Netlist } from '../model/netlist';
+import type { ElementInfo, Netlist } from '../model/netlist';
 import { evaluateNets, type Mech } from '../model/nets';
 
 export interface NetFacts {
@@ -20,6 +20,20 @@ export interface NetFacts {
   rootL: number[];
   gnd: number;
   roots: Int32Array;
+}
+
+const ascending = (a: number, b: number) => a - b;
+
+const networkCache = new WeakMap<Netlist, ElementInfo[]>();
+
+/** The speech networks among the netlist's elements, in element order. */
+function networksOf(nl: Netlist): ElementInfo[] {
+  let list = networkCache.get(nl);
+  if (!list) {
+    list = nl.elements.filter((e) => e.kind === 'network');
+    networkCache.set(nl, list);
+  }
+  return list;
 }
 
 export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
@@ -41,9 +55,9 @@ export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
     aClosed[i] = roots[d[l.a]] === gnd;
     setsOn.push([]);
   }
-  const hears: number[][] = nl.sets.map(() => []);
-  for (const e of nl.elements) {
-    if (e.kind !== 'network') continue;
+  const hears: number[][] = new Array(nl.sets.length);
+  for (let s = 0; s < hears.length; s++) hears[s] = [];
+  for (const e of networksOf(nl)) {
     const ra = roots[d[e.a]];
     const rb = roots[d[e.b]];
     if (ra === rb) continue;
@@ -57,8 +71,8 @@ export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
       }
     }
   }
-  for (const h of hears) h.sort((a, b) => a - b);
-  for (const s of setsOn) s.sort((a, b) => a - b);
+  for (const h of hears) if (h.length > 1) h.sort(ascending);
+  for (const s of setsOn) if (s.length > 1) s.sort(ascending);
   return { aClosed, networkLoop, hears, setsOn, rootT, rootR, rootL, gnd, roots };
 }
 

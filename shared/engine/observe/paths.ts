@@ -127,7 +127,8 @@ export function findPath(nl: Netlist, from: number, to: number, mech: Mech | nul
  */
 export class PathFinder {
   private readonly trees = new Map<number, Tree>();
-  private readonly paths = new Map<string, TerminalPath | null>();
+  /** Keyed by from × terminal count + to. */
+  private readonly paths = new Map<number, TerminalPath | null>();
   private readonly hops = new Map<TerminalPath, Hop[]>();
   private scratch: Scratch | null = null;
   private readonly adj: Adjacency;
@@ -145,8 +146,9 @@ export class PathFinder {
   }
 
   path(from: number, to: number): TerminalPath | null {
-    const key = `${from}>${to}`;
-    if (this.paths.has(key)) return this.paths.get(key)!;
+    const key = from * this.nl.terminals.length + to;
+    const known = this.paths.get(key);
+    if (known !== undefined) return known;
     const found = this.trace(from, to);
     this.paths.set(key, found);
     return found;

@@ -10,6 +10,8 @@ export {
   eventFindings,
   eventMayAddFindings,
   computeNets,
+  computeNetsInto,
+  createMechFor,
 } from '../observe/evaluate';
 export { getTemplate, TEMPLATES } from '../templates/part-templates';
 export { standardCrossConnect, effectiveCrossConnect } from '../model/cross-connect';

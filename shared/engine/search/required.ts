@@ -8,6 +8,7 @@ import {
   evaluate,
   getTemplate,
   initialState,
+  type Evaluation,
   type Plan,
   type SimAction,
   type SimState,
@@ -20,6 +21,11 @@ export interface RequiredFailure {
   lines: number[];
   stations: string[];
   message: string;
+}
+
+/** What the sets and lines do in a state: the observations only (no findings are read here, so no paths). */
+function observe(plan: Plan, state: SimState): Evaluation {
+  return evaluate(plan, state, { paths: false });
 }
 
 function run(plan: Plan, actions: SimAction[], from: SimState = initialState(plan)): SimState {
@@ -56,7 +62,7 @@ function checkLines(plan: Plan, out: RequiredFailure[]): void {
         });
       const select: SimAction[] = key === null ? [] : [{ kind: 'press-key', set: set.id, key }];
       let state = run(plan, [...select, { kind: 'lift-handset', set: set.id }]);
-      let ev = evaluate(plan, state);
+      let ev = observe(plan, state);
       const obs = ev.lines.find((l) => l.line === line);
       const hears = ev.sets.find((s) => s.set === set.id)?.hears ?? [];
       if (!obs?.aClosed || !obs.loopClosed || !hears.includes(line)) {
@@ -66,13 +72,13 @@ function checkLines(plan: Plan, out: RequiredFailure[]): void {
       if (hears.length > 1) fail('extra', 'does not hear alone on');
       if (hasHold && key !== null) {
         state = run(plan, [{ kind: 'press-hold', set: set.id }], state);
-        ev = evaluate(plan, state);
+        ev = observe(plan, state);
         if (ev.lines.find((l) => l.line === line)?.status !== 'held') {
           fail('missing', 'cannot hold');
           continue;
         }
         state = run(plan, [{ kind: 'press-key', set: set.id, key }], state);
-        ev = evaluate(plan, state);
+        ev = observe(plan, state);
         if (!(ev.sets.find((s) => s.set === set.id)?.hears ?? []).includes(line)) {
           fail('missing', 'cannot take back from hold');
           continue;
@@ -86,7 +92,7 @@ function checkLines(plan: Plan, out: RequiredFailure[]): void {
         ],
         state,
       );
-      ev = evaluate(plan, state);
+      ev = observe(plan, state);
       const after = ev.lines.find((l) => l.line === line);
       if (after && (after.aClosed || after.status !== 'idle')) fail('extra', 'cannot release');
     }
@@ -95,7 +101,7 @@ function checkLines(plan: Plan, out: RequiredFailure[]): void {
 
 function checkIntercom(plan: Plan, out: RequiredFailure[]): void {
   for (const station of plan.ksu.stations) {
-    const ev = evaluate(plan, run(plan, [{ kind: 'intercom-call', station: station.id }]));
+    const ev = observe(plan, run(plan, [{ kind: 'intercom-call', station: station.id }]));
     const obs = ev.stations.find((s) => s.station === station.id);
     const assigned = plan.sets.filter((s) => s.station === station.id).map((s) => s.id);
     const buzzing = obs?.buzzing ?? [];
@@ -148,7 +154,7 @@ function checkHandsFree(plan: Plan, out: RequiredFailure[]): void {
       { kind: 'press-key', set: setId, key: first.key as number },
       { kind: 'hands-free', set: setId, on: true },
     ]);
-    const obs = evaluate(plan, state).lines.find((l) => l.line === first.line);
+    const obs = observe(plan, state).lines.find((l) => l.line === first.line);
     if (!obs?.aClosed || !obs.loopClosed || !obs.setsOn.includes(setId)) fail([first.line]);
   }
 }

@@ -4,7 +4,8 @@
  */
 import {
   applyAction,
-  computeNets,
+  computeNetsInto,
+  createMechFor,
   evaluate,
   evaluateFindings,
   eventFindings,
@@ -163,42 +164,46 @@ export function sweepEvents(plan: Plan, mode: 'single' | 'product' = 'single'): 
 }
 
 /**
- * Mechanical combinations (one move index per set) in increasing total size.
- * maxActive limits how many sets may leave idle (the reduced strategy); groups, when given, say which sets may be
- * active together (sets on the same KSU station port).
+ * Mechanical combinations (one move index per set) in increasing total size, each handed to `visit` (a new array
+ * each time); visiting ends early when it returns false. maxActive limits how many sets may leave idle (the reduced
+ * strategy); groups, when given, say which sets may be active together (sets on the same KSU station port).
+ * Recursion with a callback rather than nested generators: with 40 sets every combination would otherwise pass
+ * through 40 delegating generators.
  */
-function* combinations(
+function forEachCombination(
   moves: SetMove[][],
   maxActive: number,
   sameGroup: (i: number, j: number) => boolean,
-): Generator<number[]> {
+  visit: (combo: number[]) => boolean,
+): void {
   const n = moves.length;
   const sizes = moves.map((ms) => ms.map(moveSize));
+  // Every entry from the set being filled on is 0 (each level puts its entry back), so a spent budget is a
+  // finished combination.
   const combo = new Array<number>(n).fill(0);
   // Largest size the sets from i on can still add, for pruning.
   const rest = new Array<number>(n + 1).fill(0);
   for (let i = n - 1; i >= 0; i--) rest[i] = rest[i + 1] + Math.max(...sizes[i]);
+  const active: number[] = [];
 
-  function* fill(i: number, budget: number, active: number[]): Generator<number[]> {
-    if (i === n) {
-      if (budget === 0) yield combo.slice();
-      return;
-    }
-    if (budget > rest[i]) return;
-    combo[i] = 0;
-    yield* fill(i + 1, budget, active);
-    if (active.length >= maxActive || active.some((j) => !sameGroup(i, j))) return;
+  function fill(i: number, budget: number): boolean {
+    if (budget === 0) return visit(combo.slice());
+    if (i === n || budget > rest[i]) return true;
+    if (!fill(i + 1, budget)) return false;
+    if (active.length >= maxActive || active.some((j) => !sameGroup(i, j))) return true;
     for (let m = 1; m < moves[i].length; m++) {
       const s = sizes[i][m];
       if (s > budget) continue;
       combo[i] = m;
       active.push(i);
-      yield* fill(i + 1, budget - s, active);
+      const go = fill(i + 1, budget - s);
       active.pop();
+      combo[i] = 0;
+      if (!go) return false;
     }
-    combo[i] = 0;
+    return true;
   }
-  for (let size = 0; size <= rest[0]; size++) yield* fill(0, size, []);
+  for (let size = 0; size <= rest[0]; size++) if (!fill(0, size)) return;
 }
 
 function countCombinations(
@@ -366,25 +371,31 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
   const comboActions = (combo: number[]): SimAction[] =>
     combo.flatMap((m, i) => (m === 0 ? [] : moveActions(setIds[i], moves[i][m])));
 
-  outer: for (const combo of combinations(moves, planned.maxActive, planned.sameGroup)) {
+  // Each set's position as a SetState, shared by every combination (the evaluation only reads them).
+  const moveStates = moves.map((ms) =>
+    ms.map((m) => ({ offHook: m.offHook, pressedKey: m.key, handsFreeOn: m.handsFree })),
+  );
+  // One mechanical state buffer for the whole sweep: a combination's nets are dropped before the next one's.
+  const mechBuffer = opts.exact ? null : createMechFor(plan);
+
+  forEachCombination(moves, planned.maxActive, planned.sameGroup, (combo) => {
     let comboSize = 0;
     let active = 0;
     const sets: SimState['sets'] = {};
     for (let i = 0; i < combo.length; i++) {
-      const m = moves[i][combo[i]];
-      sets[setIds[i]] = { offHook: m.offHook, pressedKey: m.key, handsFreeOn: m.handsFree };
-      comboSize += moveSize(m);
+      sets[setIds[i]] = moveStates[i][combo[i]];
+      comboSize += moveSize(moves[i][combo[i]]);
       if (combo[i] !== 0) active++;
     }
     // Reduced strategy: two sets together are visited without KSU events (see README).
     const openingCount = planned.strategy === 'reduced' && active > 1 ? 1 : openings.length;
     // The sets' positions fix every contact, so the nets are solved once for all events.
-    const nets = opts.exact ? null : computeNets(plan, { ...start, sets });
+    const nets = mechBuffer ? computeNetsInto(plan, { ...start, sets }, mechBuffer) : null;
     const actions = opts.exact ? comboActions(combo) : null;
     for (let o = 0; o < openingCount; o++) {
       if (visited >= limit || (visited % 64 === 0 && opts.shouldStop?.())) {
         stopped = true;
-        break outer;
+        return false;
       }
       const opening = openings[o];
       // Moving from idle only closes contacts, so no line changes circuit on the way: the opening's line states
@@ -409,18 +420,42 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
       }
       if (visited % 256 === 0) opts.onProgress?.(visited, total);
     }
-  }
+    return true;
+  });
   opts.onProgress?.(visited, total);
+
+  // applyAction is pure, so a state is reached as well from the state its first actions reach: the opening's state,
+  // then the states after each set's moves, shared between the kept states that begin alike. Each kept state is
+  // still a new object, as when its actions are applied one by one from the start.
+  const prefixStates = new Map<string, SimState>();
+  const replay = (o: number, combo: number[]): SimState => {
+    const opening = openings[o];
+    let last = combo.length - 1;
+    while (last >= 0 && combo[last] === 0) last--;
+    if (last < 0) return applyAll(plan, start, opening.actions);
+    let state = opening.state;
+    let key = String(o);
+    for (let i = 0; i < last; i++) {
+      key += `,${combo[i]}`;
+      if (combo[i] === 0) continue;
+      let next = prefixStates.get(key);
+      if (!next) {
+        next = applyAll(plan, state, moveActions(setIds[i], moves[i][combo[i]]));
+        prefixStates.set(key, next);
+      }
+      state = next;
+    }
+    return applyAll(plan, state, moveActions(setIds[last], moves[last][combo[last]]));
+  };
 
   // The kept states, reached by their actions, evaluated once more in full for paths and sentences. The opening's
   // state is its actions applied to the start already; findings that share a state share its evaluation.
-  const kept: SweptFinding[] = [];
+  const kept: { swept: SweptFinding; key: string }[] = [];
   const evaluated = new Map<string, Map<string, Finding>>();
   for (const [key, entry] of best) {
     const opening = openings[entry.opening];
-    const moves = comboActions(entry.combo);
-    const actions = [...opening.actions, ...moves];
-    const state = applyAll(plan, opening.state, moves);
+    const actions = [...opening.actions, ...comboActions(entry.combo)];
+    const state = replay(entry.opening, entry.combo);
     const stateKey = `${entry.opening}|${entry.combo.join(',')}`;
     let byKey = evaluated.get(stateKey);
     if (!byKey) {
@@ -433,16 +468,14 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
     }
     const full = byKey.get(key);
     kept.push({
-      finding: full ?? entry.finding,
-      state,
-      stateSize: entry.size,
-      actions,
-      event: opening.event,
+      swept: { finding: full ?? entry.finding, state, stateSize: entry.size, actions, event: opening.event },
+      key,
     });
   }
-  const findings = kept.sort(
-    (a, b) => a.stateSize - b.stateSize || findingKey(a.finding).localeCompare(findingKey(b.finding)),
-  );
+  // By size, then by finding key (each kept finding's key is the one it was kept under).
+  const findings = kept
+    .sort((a, b) => a.swept.stateSize - b.swept.stateSize || a.key.localeCompare(b.key))
+    .map((k) => k.swept);
   return {
     strategy: planned.strategy,
     statesVisited: visited,
