@@ -8,6 +8,15 @@ import { ApiError } from '@/api/client';
 
 type Fields<T> = { [K in keyof T]: string };
 
+/** What one field's input needs from a form: its value, its message, and the hooks that check it. */
+export interface ZodFormField<K extends string> {
+  model: Readonly<Record<K, string>>;
+  errors: Readonly<Partial<Record<K, string>>>;
+  setValue(key: K, value: string): void;
+  touch(key: K): void;
+  status(key: K): 'error' | undefined;
+}
+
 export function useZodForm<S extends z.ZodType<unknown, Record<string, string>>>(
   schema: S,
   initial: Fields<z.input<S>>,
@@ -47,6 +56,12 @@ export function useZodForm<S extends z.ZodType<unknown, Record<string, string>>>
   /** Call from the input's update: re-checks once the field has been left or a submit was tried. */
   function onInput(key: Key): void {
     if (touched[key] || submitted.value) checkField(key);
+  }
+
+  /** Call from the input's update with the new text: stores it, then re-checks as onInput does. */
+  function setValue(key: Key, value: string): void {
+    (model as Record<string, string>)[key] = value;
+    onInput(key);
   }
 
   /** Check every field; the parsed values when all pass, otherwise null with messages shown. */
@@ -95,6 +110,7 @@ export function useZodForm<S extends z.ZodType<unknown, Record<string, string>>>
     errors: errors as Readonly<Partial<Record<Key, string>>>,
     touch,
     onInput,
+    setValue,
     validate,
     applyServerErrors,
     setError,

@@ -1,5 +1,8 @@
 /** A small invented installation for Bench component tests: one KSU, one bridging adapter, two six-key sets. */
+import type { Component } from 'vue';
 import { createPinia, setActivePinia } from 'pinia';
+import { mount } from '@vue/test-utils';
+import { Position } from '@vue-flow/core';
 import { PlanSchema, type Plan } from '@shared/engine';
 import { useBenchStore } from '@/stores/bench.store';
 
@@ -51,4 +54,35 @@ export function benchWith(plan: Plan = twoSetPlan()) {
   const store = useBenchStore();
   store.load('plan-1', plan, '2026-01-01T00:00:00.000Z');
   return store;
+}
+
+/**
+ * Mount a canvas node component outside a flow, with the props vue-flow would give it.
+ * Handles need a mounted flow; their own behaviour belongs to vue-flow, not to these nodes.
+ */
+export function mountNode(
+  component: Component,
+  partId: string,
+  type: string,
+  dimensions: { width: number; height: number },
+) {
+  return mount(component, {
+    props: {
+      id: partId,
+      type,
+      selected: false,
+      connectable: true,
+      position: { x: 0, y: 0 },
+      dimensions,
+      data: { partId },
+      events: {},
+      dragging: false,
+      resizing: false,
+      zIndex: 0,
+      targetPosition: Position.Left,
+      sourcePosition: Position.Right,
+      dragHandle: undefined,
+    } as never,
+    global: { stubs: { Handle: true } },
+  });
 }

@@ -1,11 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { mount } from '@vue/test-utils';
-import { Position } from '@vue-flow/core';
 import { PlanSchema } from '@shared/engine';
 import demo from '@shared/engine/examples/demo-plan.json';
 import HandsetPanel from '@/components/bench/HandsetPanel.vue';
 import KsuNode from '@/components/bench/nodes/KsuNode.vue';
-import { benchWith } from './bench-fixture';
+import { benchWith, mountNode } from './bench-fixture';
 
 describe('HandsetPanel', () => {
   it('captions both dial tones when the handset is across two joined lines, and dials digits', async () => {
@@ -42,24 +41,7 @@ describe('HandsetPanel', () => {
 describe('KsuNode', () => {
   it('emits the far party and intercom actions for each line and station', async () => {
     const store = benchWith(PlanSchema.parse(demo));
-    const wrapper = mount(KsuNode, {
-      props: {
-        id: store.plan!.ksu.id,
-        type: 'ksu',
-        selected: false,
-        connectable: true,
-        position: { x: 0, y: 0 },
-        dimensions: { width: 250, height: 300 },
-        data: { partId: store.plan!.ksu.id },
-        events: {},
-        dragging: false,
-        resizing: false,
-        zIndex: 0,
-        targetPosition: Position.Left,
-        sourcePosition: Position.Right,
-      } as never,
-      global: { stubs: { Handle: true } },
-    });
+    const wrapper = mountNode(KsuNode, store.plan!.ksu.id, 'ksu', { width: 250, height: 300 });
     expect(wrapper.findAll('[data-testid^="ksu-line-"]')).toHaveLength(store.plan!.ksu.lines.length);
     await wrapper.get('[data-testid="ring-line-2"]').trigger('click');
     await wrapper.get('[data-testid="far-answer-3"]').trigger('click');

@@ -1,30 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { mount } from '@vue/test-utils';
-import { Position } from '@vue-flow/core';
 import KeySetNode from '@/components/bench/nodes/KeySetNode.vue';
-import { benchWith } from './bench-fixture';
+import { benchWith, mountNode } from './bench-fixture';
 
 function mountSet(partId = 'front') {
-  return mount(KeySetNode, {
-    props: {
-      id: partId,
-      type: 'key-set',
-      selected: false,
-      connectable: true,
-      position: { x: 0, y: 0 },
-      dimensions: { width: 240, height: 200 },
-      data: { partId },
-      events: {},
-      dragging: false,
-      resizing: false,
-      zIndex: 0,
-      targetPosition: Position.Left,
-      sourcePosition: Position.Right,
-      dragHandle: undefined,
-    } as never,
-    // Handles need a mounted flow; their own behaviour belongs to vue-flow, not to this node.
-    global: { stubs: { Handle: true } },
-  });
+  return mountNode(KeySetNode, partId, 'key-set', { width: 240, height: 200 });
 }
 
 describe('KeySetNode', () => {

@@ -1,0 +1,34 @@
+import { computed, ref } from 'vue';
+import { useRoute } from 'vue-router';
+import type { User } from '@shared/schemas';
+import { useAfterSignIn } from './useAfterSignIn';
+
+/**
+ * The sign-in and sign-up pages: run the session call, keep its pending state and failure for the
+ * form, go on to the right page once signed in, and carry `?next=` over to the other page's link.
+ */
+export function useAuthSubmit<V>(act: (values: V) => Promise<User>, otherPath: string) {
+  const route = useRoute();
+  const goOn = useAfterSignIn();
+
+  const pending = ref(false);
+  const error = ref<unknown>(null);
+  const otherLink = computed(() => ({
+    path: otherPath,
+    query: route.query.next ? { next: route.query.next } : {},
+  }));
+
+  async function submit(values: V) {
+    pending.value = true;
+    error.value = null;
+    try {
+      await goOn(await act(values));
+    } catch (caught) {
+      error.value = caught;
+    } finally {
+      pending.value = false;
+    }
+  }
+
+  return { pending, error, otherLink, submit };
+}
