@@ -71,7 +71,7 @@ describe.concurrent('sim command line', { timeout: 60_000 }, () => {
     const r = await sim(join(examples, 'two-set.json'), '--state', actions);
     expect(r.status).toBe(1);
     const out = r.json();
-    // Fact 3: lifting the line-5 set lights line 1 too. Common practice, no published source.
+    // lifting the line-5 set lights line 1 too. Common practice, no published source.
     expect(out.evaluation.findings).toHaveFinding('LINE_LIT_UNATTENDED', { lines: [1] });
     expect(out.state.sets.bench).toEqual({ offHook: true, pressedKey: 5, handsFreeOn: false });
   });
@@ -83,7 +83,7 @@ describe.concurrent('sim command line', { timeout: 60_000 }, () => {
       join(examples, 'states/two-set-conference.json'),
     );
     expect(r.status).toBe(1);
-    // Fact 5: different line keys on the two sets join their lines. Same source.
+    // different line keys on the two sets join their lines. Same source.
     expect(r.json().evaluation.findings).toHaveFinding('LINES_JOINED', { lines: [1, 5] });
   });
 
@@ -94,7 +94,7 @@ describe.concurrent('sim command line', { timeout: 60_000 }, () => {
     expect(out.sweep.strategy).toBe('exhaustive');
     expect(out.sweep.findings.length).toBeGreaterThan(0);
     expect(out.cure.ok).toBe(true);
-    // Fact 7: three lifted pairs in one set. Same source.
+    // three lifted pairs in one set. Same source.
     expect(out.cure.changes.map((c: { change: { pair: number } }) => c.change.pair)).toEqual([23, 24, 25]);
   });
 

@@ -83,7 +83,7 @@ describe('cure of the other example plans', () => {
   it('two hands-free sets answering one station: three lifted pairs in one set', () => {
     const plan = example('two-set.json');
     const result = cure(plan);
-    // Fact 7: common practice, no published source.
+    // Common practice, no published source.
     expect(result.changes).toHaveLength(3);
     expect(liftedPairs(result)).toEqual([23, 24, 25]);
     expect(new Set(result.changes.map((c) => c.part)).size).toBe(1);
@@ -93,7 +93,7 @@ describe('cure of the other example plans', () => {
   it('six-key with hands-free wiring beside a ten-key set: the last three pairs of the six-key set', () => {
     const plan = example('six-and-ten.json');
     const result = cure(plan);
-    // Fact 9: common practice, no published source.
+    // Common practice, no published source.
     expect(result.changes.map((c) => c.part)).toEqual(['desk', 'desk', 'desk']);
     expect(liftedPairs(result)).toEqual([23, 24, 25]);
     expectCured(plan, result);
@@ -102,7 +102,7 @@ describe('cure of the other example plans', () => {
   it('two stations on one buzzer pair: one buzzer moved, with its station following it at the KSU', () => {
     const plan = example('intercom.json');
     const result = cure(plan);
-    // Fact 8: common practice, no published source.
+    // Common practice, no published source.
     expect(result.changes).toHaveLength(1);
     const [move] = result.changes;
     expect(move.change).toEqual({ kind: 'move', pair: 18, toPair: 17 });
@@ -123,7 +123,7 @@ describe('cure of the other example plans', () => {
     }
     const plan = b.build();
     const result = cure(plan);
-    // Any two of three paralleled hands-free sets still share pairs 23–25 (fact 7 extended): common practice,
+    // Any two of three paralleled hands-free sets still share pairs 23–25: common practice,
     // no published source.
     expect(result.changes).toHaveLength(6);
     expect(result.proofOfMinimality).toBe('exhaustive');

@@ -69,11 +69,11 @@ describe('sweep of the two-set hands-free plan (demo plan)', () => {
       )?.stateSize;
     // The shared private leads are wiring: seen with every set idle. Common practice, no published source.
     expect(size('PRIVATE_LEAD_SHARED')).toBe(0);
-    // Two latched line keys join their lines even with both handsets down (fact 5 wiring). Same source.
+    // Two latched line keys join their lines even with both handsets down. Same source.
     expect(size('LINES_JOINED', [1, 5])).toBe(2);
-    // One latched key on one set plus the other set's handset lifted lights that line (fact 3). Same source.
+    // One latched key on one set plus the other set's handset lifted lights that line. Same source.
     expect(size('LINE_LIT_UNATTENDED', [1])).toBe(2);
-    // An intercom call alone shows the shared buzzer pair (fact 8). Same source.
+    // An intercom call alone shows the shared buzzer pair. Same source.
     expect(size('INTERCOM_SOUNDS_SEVERAL')).toBe(1);
     // Each active element takes at least one action to set up.
     for (const f of result.findings) expect(f.stateSize).toBeLessThanOrEqual(f.actions.length);
@@ -149,7 +149,7 @@ describe('sweep states and events', () => {
     expect(result.strategy).toBe('reduced');
     expect(result.complete).toBe(true);
     expect(result.statesVisited).toBe(planned.total);
-    // Two hands-free sets with different line keys join their lines (fact 5): common practice, no published source.
+    // Two hands-free sets with different line keys join their lines: common practice, no published source.
     expect(result.findings.map((f) => f.finding)).toHaveFinding('LINES_JOINED');
 
     const capped = sweep(plan, { limit: 100 });
