@@ -44,7 +44,9 @@ describe.skipIf(!chromiumPath)('accounts and roles in the browser', () => {
       const { page } = session;
       const errors = collectPageErrors(page);
 
-      await page.goto(`${baseUrl}/`);
+      const response = await page.goto(`${baseUrl}/`);
+      // The built client runs under a policy that allows only its own scripts (helmet's CSP, server/app.ts).
+      expect(response?.headers()['content-security-policy']).toContain("script-src 'self'");
       await page.getByRole('heading', { level: 1 }).waitFor();
       // The theme follows the system's colour scheme on a first visit (src/stores/theme.store.ts).
       expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe(scheme);

@@ -1,10 +1,8 @@
-import { existsSync } from 'node:fs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ErrorBodySchema } from '../../shared/schemas/error.schema';
 import { PlanListSchema } from '../../shared/schemas/plans.schema';
 import { SessionInfoSchema } from '../../shared/schemas/auth.schema';
-import { DEMO_PLAN_FILE } from '../../server/plans/demo-plan';
 import { SESSION_COOKIE } from '../../server/auth/lucia';
 import {
   signedInAgent,
@@ -66,7 +64,7 @@ describe('POST /api/auth/sign-up', () => {
     expect(mail.raw).toContain('Mae Welcome');
   });
 
-  it.skipIf(!existsSync(DEMO_PLAN_FILE))('gives the new account the demo plan', async () => {
+  it('gives the new account the demo plan', async () => {
     const { agent } = await signedInAgent(server);
     const res = await agent.get('/api/plans');
     expect(PlanListSchema.parse(res.body).items).toHaveLength(1); // product rule: one demo plan per new account

@@ -1,11 +1,9 @@
-import { existsSync } from 'node:fs';
 import request from 'supertest';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { SessionInfoSchema } from '../../shared/schemas/auth.schema';
 import { PlanListSchema } from '../../shared/schemas/plans.schema';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seed } from '../../db/seeds/demo-accounts.seed';
 import { isDatabaseEmpty } from '../../server/db/database';
-import { DEMO_PLAN_FILE } from '../../server/plans/demo-plan';
 import { startTestServer, type TestServer } from './server.harness';
 
 let server: TestServer;
@@ -41,7 +39,7 @@ it('does not duplicate accounts when run again', async () => {
   expect(await server.db('users').count({ n: '*' }).first()).toEqual({ n: 4 });
 });
 
-it.skipIf(!existsSync(DEMO_PLAN_FILE))('gives every demo account the demo plan', async () => {
+it('gives every demo account the demo plan', async () => {
   for (const account of DEMO_ACCOUNTS) {
     const agent = request.agent(server.app);
     await agent.post('/api/auth/sign-in').send({ email: account.email, password: DEMO_PASSWORD });

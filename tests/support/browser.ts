@@ -113,9 +113,13 @@ export async function waitForPath(page: Page, path: string): Promise<void> {
 }
 
 /** Uncaught errors thrown in the page, collected for a journey to assert there were none. */
+/** Uncaught page errors, and anything the Content Security Policy refused (Chromium reports those on the console). */
 export function collectPageErrors(page: Page): string[] {
   const errors: string[] = [];
   page.on('pageerror', (error) => errors.push(error.message));
+  page.on('console', (message) => {
+    if (/Content Security Policy/i.test(message.text())) errors.push(message.text());
+  });
   return errors;
 }
 
