@@ -21,184 +21,136 @@ export const HANDS_FREE_PAIRS = { talk: 23, mute: 24, aControl: 25 } as const;
 
 const t = (line: number, lead: 'T' | 'R' | 'A' | 'L'): string => `L${line}.${lead}`;
 
+type LeadSide = Pick<LeadSpec, 'designation' | 'terminal' | 'purpose' | 'role'>;
+
+/** One cable pair's two leads: the tip and the ring conductor, with the pair's scope. */
+function pairLeads(pair: number, scope: LeadSpec['scope'], tip: LeadSide, ring: LeadSide): LeadSpec[] {
+  return [
+    { pair, conductor: 'tip', ...tip, scope },
+    { pair, conductor: 'ring', ...ring, scope },
+  ];
+}
+
+function talkPairLeads(line: number, pair: number): LeadSpec[] {
+  const role = `line ${line} talk pair`;
+  return pairLeads(
+    pair,
+    'bus',
+    { designation: `L${line} T`, terminal: t(line, 'T'), purpose: `Line ${line} tip`, role },
+    { designation: `L${line} R`, terminal: t(line, 'R'), purpose: `Line ${line} ring`, role },
+  );
+}
+
+const lampLead = (line: number): LeadSide => ({
+  designation: `L${line} L`,
+  terminal: t(line, 'L'),
+  purpose: `Line ${line} lamp lead`,
+  role: `line ${line} lamp lead`,
+});
+
 function standardLineLeads(line: number): LeadSpec[] {
   const p = standardLinePairs(line);
   return [
-    {
-      pair: p.talk,
-      conductor: 'tip',
-      designation: `L${line} T`,
-      terminal: t(line, 'T'),
-      purpose: `Line ${line} tip`,
-      role: `line ${line} talk pair`,
-      scope: 'bus',
-    },
-    {
-      pair: p.talk,
-      conductor: 'ring',
-      designation: `L${line} R`,
-      terminal: t(line, 'R'),
-      purpose: `Line ${line} ring`,
-      role: `line ${line} talk pair`,
-      scope: 'bus',
-    },
-    {
-      pair: p.a,
-      conductor: 'tip',
-      designation: `L${line} A`,
-      terminal: t(line, 'A'),
-      purpose: `Line ${line} A-lead (hold control)`,
-      role: `line ${line} A-lead`,
-      scope: 'bus',
-    },
-    {
-      pair: p.a,
-      conductor: 'ring',
-      designation: `L${line} A1`,
-      terminal: 'A1',
-      purpose: `Line ${line} A1 (A-lead ground)`,
-      role: `line ${line} A1`,
-      scope: 'bus',
-    },
-    {
-      pair: p.lamp,
-      conductor: 'tip',
-      designation: `L${line} L`,
-      terminal: t(line, 'L'),
-      purpose: `Line ${line} lamp lead`,
-      role: `line ${line} lamp lead`,
-      scope: 'bus',
-    },
-    {
-      pair: p.lamp,
-      conductor: 'ring',
+    ...talkPairLeads(line, p.talk),
+    ...pairLeads(
+      p.a,
+      'bus',
+      {
+        designation: `L${line} A`,
+        terminal: t(line, 'A'),
+        purpose: `Line ${line} A-lead (hold control)`,
+        role: `line ${line} A-lead`,
+      },
+      {
+        designation: `L${line} A1`,
+        terminal: 'A1',
+        purpose: `Line ${line} A1 (A-lead ground)`,
+        role: `line ${line} A1`,
+      },
+    ),
+    ...pairLeads(p.lamp, 'bus', lampLead(line), {
       designation: `L${line} LG`,
       terminal: 'LG',
       purpose: `Line ${line} lamp ground`,
       role: `line ${line} lamp ground`,
-      scope: 'bus',
-    },
+    }),
   ];
 }
 
 function tenKeyExtraLineLeads(line: number): LeadSpec[] {
   const p = tenKeyExtraPairs(line);
   return [
-    {
-      pair: p.talk,
-      conductor: 'tip',
-      designation: `L${line} T`,
-      terminal: t(line, 'T'),
-      purpose: `Line ${line} tip`,
-      role: `line ${line} talk pair`,
-      scope: 'bus',
-    },
-    {
-      pair: p.talk,
-      conductor: 'ring',
-      designation: `L${line} R`,
-      terminal: t(line, 'R'),
-      purpose: `Line ${line} ring`,
-      role: `line ${line} talk pair`,
-      scope: 'bus',
-    },
-    {
-      pair: p.aLamp,
-      conductor: 'tip',
-      designation: `L${line} A`,
-      terminal: t(line, 'A'),
-      purpose: `Line ${line} A-lead, switched by line key ${line}`,
-      role: `line ${line} A-lead`,
-      scope: 'bus',
-    },
-    {
-      pair: p.aLamp,
-      conductor: 'ring',
-      designation: `L${line} L`,
-      terminal: t(line, 'L'),
-      purpose: `Line ${line} lamp lead`,
-      role: `line ${line} lamp lead`,
-      scope: 'bus',
-    },
+    ...talkPairLeads(line, p.talk),
+    ...pairLeads(
+      p.aLamp,
+      'bus',
+      {
+        designation: `L${line} A`,
+        terminal: t(line, 'A'),
+        purpose: `Line ${line} A-lead, switched by line key ${line}`,
+        role: `line ${line} A-lead`,
+      },
+      lampLead(line),
+    ),
   ];
 }
 
-const buzzerLeads: LeadSpec[] = [
-  {
-    pair: BUZZER_PAIR,
-    conductor: 'tip',
-    designation: 'BZ',
-    terminal: 'BZ.T',
-    purpose: 'Intercom buzzer',
-    role: 'buzzer pair',
-    scope: 'station',
-  },
-  {
-    pair: BUZZER_PAIR,
-    conductor: 'ring',
-    designation: 'BZ R',
-    terminal: 'BZ.R',
-    purpose: 'Intercom buzzer return',
-    role: 'buzzer pair',
-    scope: 'station',
-  },
-];
+const buzzerLeads: LeadSpec[] = pairLeads(
+  BUZZER_PAIR,
+  'station',
+  { designation: 'BZ', terminal: 'BZ.T', purpose: 'Intercom buzzer', role: 'buzzer pair' },
+  { designation: 'BZ R', terminal: 'BZ.R', purpose: 'Intercom buzzer return', role: 'buzzer pair' },
+);
 
 const handsFreeSetLeads: LeadSpec[] = [
-  {
-    pair: 23,
-    conductor: 'tip',
-    designation: 'CT',
-    terminal: 'CT',
-    purpose: 'Common talk tip, as switched by the line keys (for the hands-free add-on)',
-    role: 'talk pair',
-    scope: 'private',
-  },
-  {
-    pair: 23,
-    conductor: 'ring',
-    designation: 'CR',
-    terminal: 'CR',
-    purpose: 'Common talk ring, as switched by the line keys (for the hands-free add-on)',
-    role: 'talk pair',
-    scope: 'private',
-  },
-  {
-    pair: 24,
-    conductor: 'tip',
-    designation: 'MU',
-    terminal: 'MU',
-    purpose: 'Handset mute lead (for the hands-free add-on)',
-    role: 'mute lead',
-    scope: 'private',
-  },
-  {
-    pair: 24,
-    conductor: 'ring',
-    designation: 'MR',
-    terminal: 'MR',
-    purpose: 'Handset mute return (for the hands-free add-on)',
-    role: 'mute lead',
-    scope: 'private',
-  },
-  {
-    pair: 25,
-    conductor: 'tip',
-    designation: 'AC',
-    terminal: 'AC',
-    purpose: 'A-lead common, the A-lead control for the hands-free add-on',
-    role: 'A-lead control',
-    scope: 'private',
-  },
-  {
-    pair: 25,
-    conductor: 'ring',
-    designation: 'A1',
-    terminal: 'A1',
-    purpose: 'A1 side of the A-lead control (for the hands-free add-on)',
-    role: 'A-lead control',
-    scope: 'private',
-  },
+  ...pairLeads(
+    HANDS_FREE_PAIRS.talk,
+    'private',
+    {
+      designation: 'CT',
+      terminal: 'CT',
+      purpose: 'Common talk tip, as switched by the line keys (for the hands-free add-on)',
+      role: 'talk pair',
+    },
+    {
+      designation: 'CR',
+      terminal: 'CR',
+      purpose: 'Common talk ring, as switched by the line keys (for the hands-free add-on)',
+      role: 'talk pair',
+    },
+  ),
+  ...pairLeads(
+    HANDS_FREE_PAIRS.mute,
+    'private',
+    {
+      designation: 'MU',
+      terminal: 'MU',
+      purpose: 'Handset mute lead (for the hands-free add-on)',
+      role: 'mute lead',
+    },
+    {
+      designation: 'MR',
+      terminal: 'MR',
+      purpose: 'Handset mute return (for the hands-free add-on)',
+      role: 'mute lead',
+    },
+  ),
+  ...pairLeads(
+    HANDS_FREE_PAIRS.aControl,
+    'private',
+    {
+      designation: 'AC',
+      terminal: 'AC',
+      purpose: 'A-lead common, the A-lead control for the hands-free add-on',
+      role: 'A-lead control',
+    },
+    {
+      designation: 'A1',
+      terminal: 'A1',
+      purpose: 'A1 side of the A-lead control (for the hands-free add-on)',
+      role: 'A-lead control',
+    },
+  ),
 ];
 
 function lineKeys(lines: number): KeySpec[] {
