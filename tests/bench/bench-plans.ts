@@ -1,17 +1,9 @@
 /** Plans for the benchmark: the shipped two-set example and generated larger installations. */
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { initialState, validatePlan, type Plan, type SimState } from '../../shared/engine/index';
+import { initialState, type Plan, type SimState } from '../../shared/engine/index';
+import { examplePlan } from '../support/example-plans';
 import { planBuilder } from '../support/plan-builder';
 
-const examples = join(fileURLToPath(new URL('.', import.meta.url)), '../../shared/engine/examples');
-
-export function examplePlan(file: string): Plan {
-  const r = validatePlan(JSON.parse(readFileSync(join(examples, file), 'utf8')));
-  if (!r.ok) throw new Error(`${file}: ${JSON.stringify(r.issues)}`);
-  return r.plan;
-}
+export { examplePlan };
 
 /** `sets` sets of the given template on one four-jack bridging adapter, on KSU port 1. */
 export function setsOnOneAdapter(sets: number, template = 'six-key-hf'): Plan {

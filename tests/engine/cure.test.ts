@@ -1,23 +1,9 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import {
-  applyCure,
-  checkRequired,
-  cure,
-  sweep,
-  validatePlan,
-  type CureResult,
-  type Plan,
-} from '../../shared/engine/index';
+import { applyCure, checkRequired, cure, sweep, type CureResult, type Plan } from '../../shared/engine/index';
+import { examplePlan } from '../support/example-plans';
 import { planBuilder } from '../support/plan-builder';
 
-const examples = join(__dirname, '../../shared/engine/examples');
-function example(file: string): Plan {
-  const r = validatePlan(JSON.parse(readFileSync(join(examples, file), 'utf8')));
-  if (!r.ok) throw new Error(`${file}: ${JSON.stringify(r.issues)}`);
-  return r.plan;
-}
+const example = examplePlan;
 
 const lifts = (r: CureResult) => r.changes.filter((c) => c.change.kind === 'lift');
 const moves = (r: CureResult) => r.changes.filter((c) => c.change.kind === 'move');

@@ -1,5 +1,3 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
   evaluate,
@@ -7,18 +5,12 @@ import {
   planSweep,
   sweep,
   sweepEvents,
-  validatePlan,
-  type Plan,
   type SweepResult,
 } from '../../shared/engine/index';
+import { examplePlan } from '../support/example-plans';
 import { operate, planBuilder } from '../support/plan-builder';
 
-const examples = join(__dirname, '../../shared/engine/examples');
-function example(file: string): Plan {
-  const r = validatePlan(JSON.parse(readFileSync(join(examples, file), 'utf8')));
-  if (!r.ok) throw new Error(`${file}: ${JSON.stringify(r.issues)}`);
-  return r.plan;
-}
+const example = examplePlan;
 
 const keys = (r: SweepResult) => r.findings.map((f) => findingKey(f.finding)).sort();
 const codes = (r: SweepResult) => new Set(r.findings.map((f) => f.finding.code));
