@@ -1,9 +1,31 @@
 import { describe, expect, it } from 'vitest';
-import { applyCure, checkRequired, cure, sweep, type CureResult, type Plan } from '../../shared/engine/index';
+import {
+  applyCure,
+  checkRequired,
+  cure,
+  sweep,
+  validatePlan,
+  type CureResult,
+  type Plan,
+} from '../../shared/engine/index';
 import { examplePlan } from '../support/example-plans';
 import { planBuilder } from '../support/plan-builder';
 
 const example = examplePlan;
+
+/** The plan with a hands-free add-on serving each set (not cabled: only its presence matters to the cost). */
+function withAddOnForEverySet(plan: Plan): Plan {
+  const addOns = plan.sets.map((s, i) => ({
+    id: `hf-${i}`,
+    name: `Speaker ${i}`,
+    template: 'hands-free-unit',
+    serves: s.id,
+    leadChanges: [],
+  }));
+  const r = validatePlan({ ...plan, addOns });
+  if (!r.ok) throw new Error(JSON.stringify(r.issues));
+  return r.plan;
+}
 
 const lifts = (r: CureResult) => r.changes.filter((c) => c.change.kind === 'lift');
 const moves = (r: CureResult) => r.changes.filter((c) => c.change.kind === 'move');
@@ -129,16 +151,7 @@ describe('cure of the other example plans', () => {
 
   it('names what a lift costs when every set has a hands-free add-on', () => {
     const plan = example('two-set.json');
-    const withAddOns: Plan = {
-      ...plan,
-      addOns: plan.sets.map((s, i) => ({
-        id: `hf-${i}`,
-        name: `Speaker ${i}`,
-        template: 'hands-free',
-        serves: s.id,
-        leadChanges: [],
-      })),
-    };
+    const withAddOns = withAddOnForEverySet(plan);
     const result = cure(withAddOns);
     expect(result.changes).toHaveLength(3);
     const name = withAddOns.sets.find((s) => s.id === result.changes[0].part)!.name;
@@ -149,16 +162,7 @@ describe('cure of the other example plans', () => {
     // Both sets must keep hands-free, so neither may lose its last three pairs: no cure exists.
     const plan = example('two-set.json');
     const strict = { ...plan, required: { ...plan.required, handsFreeSets: plan.sets.map((s) => s.id) } };
-    const withAddOns: Plan = {
-      ...strict,
-      addOns: plan.sets.map((s, i) => ({
-        id: `hf-${i}`,
-        name: `Speaker ${i}`,
-        template: 'hands-free',
-        serves: s.id,
-        leadChanges: [],
-      })),
-    };
+    const withAddOns = withAddOnForEverySet(strict);
     const result = cure(withAddOns, { maxChanges: 2 });
     expect(result.ok).toBe(false);
     expect(result.message).toMatch(/No cure/);

@@ -314,11 +314,13 @@ function buzzersOn(nl: Netlist, state: SimState, facts: NetFacts): boolean[] {
   return on;
 }
 
-/**
- * Findings only, without paths or observations: the sweep's hot path. Same codes, sets, lines, stations and
- * messages (minus path-based wording) as evaluate(plan, state, { paths: false }).findings.
- */
-export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): Finding[] {
+/** The per-line facts the findings need, without paths; joins only when asked (events never change them). */
+function quickLineFacts(
+  plan: Plan,
+  state: SimState,
+  nets: StateNets,
+  withJoins: boolean,
+): { c: Context; lines: LineFacts[] } {
   const nl = getNetlist(plan);
   const { mech, facts } = nets;
   const lineStates = lineStatesOf(nl, state);
@@ -330,9 +332,19 @@ export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): 
       status: lineStatus(c, i),
       aClosed: facts.aClosed[i],
       far: lineStates[i]?.far.phase ?? 'idle',
-      joinedWith: joinedLines(nl, facts, i),
+      joinedWith: withJoins ? joinedLines(nl, facts, i) : [],
     };
   }
+  return { c, lines };
+}
+
+/**
+ * Findings only, without paths or observations: the sweep's hot path. Same codes, sets, lines, stations and
+ * messages (minus path-based wording) as evaluate(plan, state, { paths: false }).findings.
+ */
+export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): Finding[] {
+  const { c, lines } = quickLineFacts(plan, state, nets, true);
+  const { nl, facts } = c;
   const dynamic = dynamicFindings(c, lines, buzzersOn(nl, state, facts));
   const fixed = staticFindings(nl, false);
   return fixed.length ? dynamic.concat(fixed) : dynamic;
@@ -349,21 +361,8 @@ export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): 
 export function eventFindings(plan: Plan, state: SimState, nets: StateNets): Finding[] {
   if (!eventMayAddFindings(state)) return [];
   const calling = state.intercom.calling;
-  const nl = getNetlist(plan);
-  const { mech, facts } = nets;
-  const lineStates = lineStatesOf(nl, state);
-  const c: Context = { nl, state, mech, facts, lineStates, paths: false };
-  const lines: LineFacts[] = new Array(nl.lines.length);
-  for (let i = 0; i < nl.lines.length; i++) {
-    lines[i] = {
-      line: nl.lines[i].number,
-      status: lineStatus(c, i),
-      aClosed: facts.aClosed[i],
-      far: lineStates[i]?.far.phase ?? 'idle',
-      joinedWith: [],
-    };
-  }
-  return dynamicFindings(c, lines, calling ? buzzersOn(nl, state, facts) : [], true);
+  const { c, lines } = quickLineFacts(plan, state, nets, false);
+  return dynamicFindings(c, lines, calling ? buzzersOn(c.nl, state, c.facts) : [], true);
 }
 
 /** False when eventFindings is empty whatever the sets do: no line held aside and no intercom call. */
