@@ -26,7 +26,11 @@ export default defineConfig({
           groups: [
             // Priorities keep Vue itself out of the canvas chunk, so the first page does not load vue-flow.
             { name: 'vendor-flow', test: /node_modules[\\/]@vue-flow/, priority: 1 },
-            { name: 'vendor-ui', test: /node_modules[\\/](naive-ui|vueuc|vooks|seemly|css-render|@css-render|evtd|treemate|vdirs|date-fns|lodash-es)/, priority: 2 },
+            {
+              name: 'vendor-ui',
+              test: /node_modules[\\/](naive-ui|vueuc|vooks|seemly|css-render|@css-render|evtd|treemate|vdirs|date-fns|lodash-es)/,
+              priority: 2,
+            },
             { name: 'vendor-vue', test: /node_modules[\\/](@vue|vue|vue-router|pinia)[\\/]/, priority: 3 },
           ],
         },
@@ -50,7 +54,13 @@ export default defineConfig({
       },
       {
         extends: true,
-        test: { name: 'client', environment: 'happy-dom', include: ['tests/client/**/*.test.ts'] },
+        test: {
+          name: 'client',
+          environment: 'happy-dom',
+          include: ['tests/client/**/*.test.ts'],
+          // First imports of the lazily loaded pages compile naive-ui; on two busy cores that can pass 5 s.
+          testTimeout: 20_000,
+        },
       },
       {
         extends: true,

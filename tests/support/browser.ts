@@ -132,6 +132,8 @@ export async function seriousViolations(page: Page, exclude: string[] = []): Pro
       .getAnimations()
       .every((a) => a.playState !== 'running' || a.effect?.getTiming().iterations === Infinity),
   );
+  // Toasts fade in and out over their few seconds on screen; judge the page once they have gone.
+  await page.locator('.n-message').first().waitFor({ state: 'detached', timeout: 15_000 });
   let builder = new AxeBuilder({ page });
   for (const selector of exclude) builder = builder.exclude(selector);
   const results = await builder.analyze();
