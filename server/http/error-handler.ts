@@ -5,7 +5,7 @@
  */
 import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { ZodError } from 'zod';
-import type { ErrorBody, ErrorCode } from '../../shared/schemas/error.schema';
+import { ERROR_CODE_BY_STATUS, type ErrorBody, type ErrorCode } from '../../shared/schemas/error.schema';
 import { HttpError } from './http-error';
 import { issuesByPath } from './validate';
 
@@ -27,15 +27,6 @@ interface BodyParserError {
 }
 const isBodyParserError = (err: unknown): err is BodyParserError =>
   typeof err === 'object' && err !== null && typeof (err as { type?: unknown }).type === 'string';
-
-const CODE_BY_STATUS: Record<number, ErrorCode> = {
-  401: 'UNAUTHENTICATED',
-  403: 'FORBIDDEN',
-  404: 'NOT_FOUND',
-  409: 'CONFLICT',
-  413: 'PAYLOAD_TOO_LARGE',
-  429: 'RATE_LIMITED',
-};
 
 /** The 4xx status an error carries (http-errors style `status`/`statusCode`), or null. */
 function clientErrorStatus(err: unknown): number | null {
@@ -75,7 +66,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
     return sendError(
       res,
       status,
-      CODE_BY_STATUS[status] ?? 'VALIDATION_FAILED',
+      ERROR_CODE_BY_STATUS[status] ?? 'VALIDATION_FAILED',
       'The request could not be understood.',
     );
   }

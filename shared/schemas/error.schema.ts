@@ -18,6 +18,17 @@ export const ERROR_CODES = [
 export const ErrorCodeSchema = z.enum(ERROR_CODES);
 export type ErrorCode = z.infer<typeof ErrorCodeSchema>;
 
+/** The code an HTTP status stands for when nothing more specific is known (server and client alike). */
+export const ERROR_CODE_BY_STATUS: Readonly<Record<number, ErrorCode>> = {
+  400: 'VALIDATION_FAILED',
+  401: 'UNAUTHENTICATED',
+  403: 'FORBIDDEN',
+  404: 'NOT_FOUND',
+  409: 'CONFLICT',
+  413: 'PAYLOAD_TOO_LARGE',
+  429: 'RATE_LIMITED',
+};
+
 export const ErrorBodySchema = z.object({
   error: z.object({
     code: ErrorCodeSchema,

@@ -3,7 +3,7 @@
  * every failure becomes an ApiError so components handle one error shape.
  */
 import type { z } from 'zod';
-import { ErrorBodySchema, type ErrorCode } from '@shared/schemas';
+import { ERROR_CODE_BY_STATUS, ErrorBodySchema, type ErrorCode } from '@shared/schemas';
 
 /** Server codes plus the two the client raises itself. */
 export type ApiErrorCode = ErrorCode | 'NETWORK' | 'BAD_RESPONSE';
@@ -37,16 +37,6 @@ export function setUnauthenticatedHandler(handler: UnauthenticatedHandler | null
   onUnauthenticated = handler;
 }
 
-const STATUS_FALLBACK: Record<number, ErrorCode> = {
-  400: 'VALIDATION_FAILED',
-  401: 'UNAUTHENTICATED',
-  403: 'FORBIDDEN',
-  404: 'NOT_FOUND',
-  409: 'CONFLICT',
-  413: 'PAYLOAD_TOO_LARGE',
-  429: 'RATE_LIMITED',
-};
-
 async function readJson(response: Response): Promise<unknown> {
   const text = await response.text();
   if (!text) return undefined;
@@ -63,7 +53,7 @@ function errorFromResponse(status: number, body: unknown): ApiError {
     const { code, message, details } = parsed.data.error;
     return new ApiError(status, code, message, details);
   }
-  const code = STATUS_FALLBACK[status] ?? 'INTERNAL';
+  const code = ERROR_CODE_BY_STATUS[status] ?? 'INTERNAL';
   return new ApiError(
     status,
     code,
