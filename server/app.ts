@@ -10,7 +10,7 @@ import helmet from 'helmet';
 import { pino, type Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import { adminRoutes } from './admin/admin.routes';
-import { loadSession } from './auth/auth.middleware';
+import { loadSession } from './http/auth.middleware';
 import { authRoutes } from './auth/auth.routes';
 import { authService } from './auth/auth.service';
 import { createLucia } from './auth/lucia';

@@ -4,13 +4,14 @@
  */
 import type { AddressInfo } from 'node:net';
 import { pino } from 'pino';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, seed } from '../db/seeds/demo-accounts.seed';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../db/seeds/demo-accounts.seed';
 import { createApp } from './app';
 import { KnexAdapter } from './auth/knex-adapter';
 import { ConfigError, loadConfig, type Config } from './config';
 import { isDatabaseEmpty, migrateLatest, openDatabase } from './db/database';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
+import { seedDemo } from './seed-demo';
 
 let config: Config;
 try {
@@ -30,7 +31,7 @@ const applied = await migrateLatest(db);
 if (applied.length) logger.info({ migrations: applied }, 'database migrated');
 
 if (config.seedDemo && (await isDatabaseEmpty(db))) {
-  const result = await seed(db);
+  const result = await seedDemo(db);
   logger.info({ accounts: result.accounts }, 'demo accounts created');
   if (result.planSkipped) logger.warn(`demo plan not added: ${result.planSkipped}`);
 }

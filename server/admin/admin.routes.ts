@@ -2,7 +2,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { RoleChangeSchema, UserListQuerySchema, type UserList } from '../../shared/schemas/auth.schema';
-import { currentUser, requireRole } from '../auth/auth.middleware';
+import { currentUser, requireRole } from '../http/auth.middleware';
 import { HttpError, notFound } from '../http/http-error';
 import { parseBody, parseParams, parseQuery } from '../http/validate';
 import type { UsersRepo } from '../users/users.repo';

@@ -7,14 +7,13 @@ import {
   type SessionInfo,
   type User,
 } from '../../shared/schemas/auth.schema';
-import type { Config } from '../config';
-import { authRateLimit } from '../http/rate-limit';
+import { authRateLimit, type RateLimitOptions } from '../http/rate-limit';
 import { parseBody } from '../http/validate';
-import { currentUser, requireUser } from './auth.middleware';
+import { currentUser, requireUser } from '../http/auth.middleware';
 import type { AuthService } from './auth.service';
 import type { AppLucia } from './lucia';
 
-export function authRoutes(auth: AuthService, lucia: AppLucia, rateLimit: Config['authRateLimit']): Router {
+export function authRoutes(auth: AuthService, lucia: AppLucia, rateLimit: RateLimitOptions): Router {
   const router = Router();
   // One budget for sign-in and sign-up together, per client address.
   const limiter = authRateLimit(rateLimit);

@@ -1,13 +1,12 @@
 /** Sessions: lucia over our Knex adapter, with the cookie settings from the config. */
 import { Lucia, TimeSpan } from 'lucia';
 import type { Role } from '../../shared/schemas/auth.schema';
-import type { Config } from '../config';
 import type { Database } from '../db/database';
 import { KnexAdapter } from './knex-adapter';
 
 export const SESSION_COOKIE = 'leadbench_session';
 
-export function createLucia(db: Database, config: Pick<Config, 'sessionDays' | 'sessionSecure'>) {
+export function createLucia(db: Database, config: { sessionDays: number; sessionSecure: boolean }) {
   return new Lucia(new KnexAdapter(db), {
     sessionExpiresIn: new TimeSpan(config.sessionDays, 'd'),
     sessionCookie: {

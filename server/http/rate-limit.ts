@@ -1,9 +1,13 @@
 /** Limits repeated sign-in and sign-up attempts from one address; answers in our error shape. */
 import { rateLimit } from 'express-rate-limit';
-import type { Config } from '../config';
 import { sendError } from './error-handler';
 
-export function authRateLimit(options: Config['authRateLimit']) {
+export interface RateLimitOptions {
+  windowMs: number;
+  limit: number;
+}
+
+export function authRateLimit(options: RateLimitOptions) {
   return rateLimit({
     windowMs: options.windowMs,
     limit: options.limit,

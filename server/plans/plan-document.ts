@@ -3,7 +3,7 @@
  * cross-references: templates, parts, ports, stations, lines). Problems come back as `details` keyed by
  * dotted path under "document", like every other validation answer (e.g. "document.sets.1.template").
  */
-import { validatePlan, type Plan } from '../../shared/engine/index';
+import { crossReferenceIssues, validatePlan, type Plan, type PlanIssue } from '../../shared/engine/index';
 import { HttpError } from '../http/http-error';
 
 /** The engine writes "sets[1].template"; the API's details use "sets.1.template". */
@@ -13,9 +13,20 @@ const dotted = (enginePath: string): string =>
 export function checkPlanDocument(input: unknown): Plan {
   const result = validatePlan(input);
   if (result.ok) return result.plan;
+  throw planProblems(result.issues);
+}
+
+/** The cross-references of a document the shared request schema has already parsed. */
+export function checkPlanReferences(plan: Plan): Plan {
+  const issues = crossReferenceIssues(plan);
+  if (issues.length) throw planProblems(issues);
+  return plan;
+}
+
+function planProblems(issues: readonly PlanIssue[]): HttpError {
   const details: Record<string, string[]> = {};
-  for (const issue of result.issues) (details[dotted(issue.path)] ??= []).push(issue.message);
-  throw new HttpError(
+  for (const issue of issues) (details[dotted(issue.path)] ??= []).push(issue.message);
+  return new HttpError(
     400,
     'VALIDATION_FAILED',
     'The plan has problems that must be fixed before saving.',

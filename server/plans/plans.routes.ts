@@ -1,20 +1,19 @@
 /** Saved plans of the signed-in user. Another user's plan answers 404, as if it did not exist. */
 import { Router } from 'express';
 import { z } from 'zod';
-import type { PlanList, PlanRecord } from '../../shared/schemas/plans.schema';
-import { currentUser, requireUser } from '../auth/auth.middleware';
+import {
+  PlanCreateSchema,
+  PlanUpdateSchema,
+  type PlanList,
+  type PlanRecord,
+} from '../../shared/schemas/plans.schema';
+import { currentUser, requireUser } from '../http/auth.middleware';
 import { HttpError, notFound } from '../http/http-error';
 import { parseBody, parseParams } from '../http/validate';
-import { checkPlanDocument } from './plan-document';
+import { checkPlanReferences } from './plan-document';
 import type { PlansRepo } from './plans.repo';
 
 const PlanIdParams = z.object({ id: z.string().min(1).max(64) });
-// The document is checked separately by the engine's rules so its problems carry full paths.
-const CreateBody = z.object({ document: z.unknown() });
-const UpdateBody = z.object({
-  document: z.unknown(),
-  baseUpdatedAt: z.string({ error: 'Send the time you last loaded the plan' }).optional(),
-});
 
 export function plansRoutes(plans: PlansRepo): Router {
   const router = Router();
@@ -26,8 +25,8 @@ export function plansRoutes(plans: PlansRepo): Router {
   });
 
   router.post('/', async (req, res) => {
-    const { document } = parseBody(CreateBody, req);
-    const plan: PlanRecord = await plans.create(currentUser(res).id, checkPlanDocument(document));
+    const { document } = parseBody(PlanCreateSchema, req);
+    const plan: PlanRecord = await plans.create(currentUser(res).id, checkPlanReferences(document));
     res.status(201).location(`/api/plans/${plan.id}`).json(plan);
   });
 
@@ -40,8 +39,13 @@ export function plansRoutes(plans: PlansRepo): Router {
 
   router.put('/:id', async (req, res) => {
     const { id } = parseParams(PlanIdParams, req);
-    const { document, baseUpdatedAt } = parseBody(UpdateBody, req);
-    const outcome = await plans.update(id, currentUser(res).id, checkPlanDocument(document), baseUpdatedAt);
+    const { document, baseUpdatedAt } = parseBody(PlanUpdateSchema, req);
+    const outcome = await plans.update(
+      id,
+      currentUser(res).id,
+      checkPlanReferences(document),
+      baseUpdatedAt,
+    );
     if (outcome.status === 'missing') throw notFound('That plan');
     if (outcome.status === 'stale') {
       throw new HttpError(

@@ -2,7 +2,8 @@ import request from 'supertest';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { SessionInfoSchema } from '../../shared/schemas/auth.schema';
 import { PlanListSchema } from '../../shared/schemas/plans.schema';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, seed } from '../../db/seeds/demo-accounts.seed';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seeds/demo-accounts.seed';
+import { seedDemo } from '../../server/seed-demo';
 import { isDatabaseEmpty } from '../../server/db/database';
 import { startTestServer, type TestServer } from './server.harness';
 
@@ -17,7 +18,7 @@ afterAll(async () => {
 it('creates one demo account per role that signs in with the demo password', async () => {
   expect(await isDatabaseEmpty(server.db)).toBe(true);
 
-  const result = await seed(server.db);
+  const result = await seedDemo(server.db);
 
   expect(result.accounts).toBe(4); // one per role: restorer, instructor, trainee, admin (product rule)
   expect(await isDatabaseEmpty(server.db)).toBe(false);
@@ -34,7 +35,7 @@ it('creates one demo account per role that signs in with the demo password', asy
 });
 
 it('does not duplicate accounts when run again', async () => {
-  const again = await seed(server.db);
+  const again = await seedDemo(server.db);
   expect(again.accounts).toBe(0);
   expect(await server.db('users').count({ n: '*' }).first()).toEqual({ n: 4 });
 });

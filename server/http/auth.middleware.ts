@@ -3,10 +3,15 @@
  * null) on `res.locals`. Routes then state who may use them with `requireUser` / `requireRole`.
  */
 import type { RequestHandler, Response } from 'express';
-import type { Session } from 'lucia';
+import type { Lucia, Session } from 'lucia';
 import type { Role, User } from '../../shared/schemas/auth.schema';
-import { HttpError } from '../http/http-error';
-import type { AppLucia } from './lucia';
+import { HttpError } from './http-error';
+
+/** What the middleware needs from the session store; `server/auth` provides it, so http/ never imports auth/. */
+export type SessionReader = Pick<
+  Lucia,
+  'readSessionCookie' | 'validateSession' | 'createBlankSessionCookie' | 'createSessionCookie'
+>;
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -18,7 +23,7 @@ declare global {
   }
 }
 
-export function loadSession(lucia: AppLucia): RequestHandler {
+export function loadSession(lucia: SessionReader): RequestHandler {
   return async (req, res, next) => {
     res.locals.user = null;
     res.locals.session = null;
