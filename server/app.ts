@@ -19,6 +19,7 @@ import type { Database } from './db/database';
 import { healthRoutes } from './health.routes';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { originCheck } from './http/origin-check';
+import { accountWriteLimit } from './http/rate-limit';
 import type { Mailer } from './mail/mailer';
 import { plansRoutes } from './plans/plans.routes';
 import { plansRepo } from './plans/plans.repo';
@@ -100,7 +101,7 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
   api.use('/health', healthRoutes(db));
   api.use('/auth', authRoutes(auth, lucia, config.authRateLimit));
   api.use('/admin', adminRoutes(users));
-  api.use('/plans', plansRoutes(plans));
+  api.use('/plans', accountWriteLimit(config.planWritesPerMinute), plansRoutes(plans));
   api.use(apiNotFound);
   app.use('/api', api);
 

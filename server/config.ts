@@ -46,6 +46,12 @@ const EnvSchema = z.object({
     .int()
     .min(1, 'Allow at least 1 attempt')
     .default(20),
+  /** Plan saves, renames and deletions allowed per account per minute. */
+  PLAN_WRITES_PER_MINUTE: z.coerce
+    .number({ error: 'Use a number of writes' })
+    .int()
+    .min(1, 'Allow at least 1 write')
+    .default(60),
   /** Folder of the built client; the repository's dist/ when unset. */
   CLIENT_DIR: z.string().trim().min(1).optional(),
 });
@@ -64,6 +70,7 @@ export interface Config {
   mailFrom: string;
   seedDemo: boolean;
   authRateLimit: { windowMs: number; limit: number };
+  planWritesPerMinute: number;
   /** Express "trust proxy": client addresses (for rate limits and logs) come from X-Forwarded-For. */
   trustProxy: boolean | number;
   /** Folder of the built client, when not the default dist/. */
@@ -94,6 +101,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     mailFrom: e.MAIL_FROM,
     seedDemo: e.SEED_DEMO,
     authRateLimit: { windowMs: 15 * 60_000, limit: e.RATE_LIMIT_MAX },
+    planWritesPerMinute: e.PLAN_WRITES_PER_MINUTE,
     trustProxy: e.TRUST_PROXY,
     clientDir: e.CLIENT_DIR,
   };

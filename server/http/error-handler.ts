@@ -7,7 +7,7 @@ import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { ZodError } from 'zod';
 import { ERROR_CODE_BY_STATUS, type ErrorBody, type ErrorCode } from '../../shared/schemas/error.schema';
 import { HttpError } from './http-error';
-import { issuesByPath } from './validate';
+import { issuesByPath, problemsMessage } from './validate';
 
 export function sendError(
   res: Response,
@@ -15,8 +15,16 @@ export function sendError(
   code: ErrorCode,
   message: string,
   details?: Record<string, string[]>,
+  problemCount?: number,
 ): void {
-  const body: ErrorBody = { error: { code, message, ...(details ? { details } : {}) } };
+  const body: ErrorBody = {
+    error: {
+      code,
+      message,
+      ...(details ? { details } : {}),
+      ...(problemCount === undefined ? {} : { problemCount }),
+    },
+  };
   res.status(status).json(body);
 }
 
@@ -42,9 +50,12 @@ export const apiNotFound: RequestHandler = (req, res) => {
 
 export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
   if (res.headersSent) return next(err);
-  if (err instanceof HttpError) return sendError(res, err.status, err.code, err.message, err.details);
+  if (err instanceof HttpError)
+    return sendError(res, err.status, err.code, err.message, err.details, err.problemCount);
   if (err instanceof ZodError) {
-    return sendError(res, 400, 'VALIDATION_FAILED', 'Some fields need attention.', issuesByPath(err.issues));
+    const problems = issuesByPath(err.issues);
+    const message = problemsMessage('Some fields need attention.', problems);
+    return sendError(res, 400, 'VALIDATION_FAILED', message, problems.details, problems.problemCount);
   }
   if (isBodyParserError(err)) {
     switch (err.type) {

@@ -7,6 +7,7 @@ export class HttpError extends Error {
     readonly code: ErrorCode,
     message: string,
     readonly details?: Record<string, string[]>,
+    readonly problemCount?: number,
   ) {
     super(message);
     this.name = 'HttpError';

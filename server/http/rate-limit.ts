@@ -1,4 +1,4 @@
-/** Limits repeated sign-in and sign-up attempts from one address; answers in our error shape. */
+/** Request budgets (per address or per account); they answer in our error shape. */
 import { rateLimit } from 'express-rate-limit';
 import { sendError } from './error-handler';
 
@@ -15,6 +15,26 @@ export function authRateLimit(options: RateLimitOptions) {
     legacyHeaders: false,
     handler: (_req, res) => {
       sendError(res, 429, 'RATE_LIMITED', 'Too many attempts. Wait a few minutes and try again.');
+    },
+  });
+}
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Writes (POST, PUT, PATCH, DELETE) per signed-in account per minute. Requests without a user are left
+ * to the route, which answers 401.
+ */
+export function accountWriteLimit(perMinute: number) {
+  return rateLimit({
+    windowMs: 60_000,
+    limit: perMinute,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    skip: (req, res) => SAFE_METHODS.has(req.method) || !res.locals.user,
+    keyGenerator: (_req, res) => `user:${res.locals.user!.id}`,
+    handler: (_req, res) => {
+      sendError(res, 429, 'RATE_LIMITED', 'Too many changes in a short time. Wait a minute and try again.');
     },
   });
 }

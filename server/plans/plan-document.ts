@@ -5,6 +5,7 @@
  */
 import { crossReferenceIssues, validatePlan, type Plan, type PlanIssue } from '../../shared/engine/index';
 import { HttpError } from '../http/http-error';
+import { issuesByPath, problemsMessage } from '../http/validate';
 
 /** The engine writes "sets[1].template"; the API's details use "sets.1.template". */
 const dotted = (enginePath: string): string =>
@@ -24,12 +25,7 @@ export function checkPlanReferences(plan: Plan): Plan {
 }
 
 function planProblems(issues: readonly PlanIssue[]): HttpError {
-  const details: Record<string, string[]> = {};
-  for (const issue of issues) (details[dotted(issue.path)] ??= []).push(issue.message);
-  return new HttpError(
-    400,
-    'VALIDATION_FAILED',
-    'The plan has problems that must be fixed before saving.',
-    details,
-  );
+  const problems = issuesByPath(issues.map((i) => ({ path: dotted(i.path), message: i.message })));
+  const message = problemsMessage('The plan has problems that must be fixed before saving.', problems);
+  return new HttpError(400, 'VALIDATION_FAILED', message, problems.details, problems.problemCount);
 }

@@ -35,6 +35,8 @@ export const ErrorBodySchema = z.object({
     message: z.string(),
     /** Field-level messages keyed by dotted path (e.g. "password", "ksu.lines.0.number"). */
     details: z.record(z.string(), z.array(z.string())).optional(),
+    /** How many problems there were in all, when `details` lists only the first of them. */
+    problemCount: z.number().int().optional(),
   }),
 });
 export type ErrorBody = z.infer<typeof ErrorBodySchema>;

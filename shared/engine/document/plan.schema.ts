@@ -1,6 +1,7 @@
 /**
  * The plan document: the serialisable description of one installation.
  * Plain JSON, versioned, validated with zod. Everything the engine computes starts from here.
+ * Every array and string has an upper bound, so a hostile document is cheap to refuse.
  */
 import { z } from 'zod';
 
@@ -40,12 +41,12 @@ export const KeySetSchema = z.object({
   id: PartIdSchema,
   name: NameSchema,
   /** Id of a set template (see templates/). */
-  template: z.string().min(1),
+  template: z.string().min(1).max(40),
   /** The intercom station this set is meant to answer (id of a KSU intercom station), if any. */
   station: PartIdSchema.optional(),
   /** Line numbers whose incoming ringing this set's ringer is strapped to. */
-  ringerLines: z.array(z.number().int().min(1)).default([]),
-  leadChanges: z.array(LeadChangeSchema).default([]),
+  ringerLines: z.array(z.number().int().min(1).max(30)).max(30).default([]),
+  leadChanges: z.array(LeadChangeSchema).max(50).default([]),
   position: PositionSchema.optional(),
 });
 export type KeySet = z.infer<typeof KeySetSchema>;
@@ -54,10 +55,10 @@ export const AddOnSchema = z.object({
   id: PartIdSchema,
   name: NameSchema,
   /** Id of an add-on template, e.g. the hands-free unit. */
-  template: z.string().min(1),
+  template: z.string().min(1).max(40),
   /** The set whose private leads this add-on is meant to share. */
   serves: PartIdSchema,
-  leadChanges: z.array(LeadChangeSchema).default([]),
+  leadChanges: z.array(LeadChangeSchema).max(50).default([]),
   position: PositionSchema.optional(),
 });
 export type AddOn = z.infer<typeof AddOnSchema>;
@@ -66,9 +67,9 @@ export const AdapterSchema = z.object({
   id: PartIdSchema,
   name: NameSchema,
   /** Id of an adapter template, e.g. two jacks and one plug. */
-  template: z.string().min(1),
+  template: z.string().min(1).max(40),
   /** Pairs the adapter parallels between its ports; all 25 when absent. */
-  bridgedPairs: z.array(PairNumberSchema).optional(),
+  bridgedPairs: z.array(PairNumberSchema).max(25).optional(),
   position: PositionSchema.optional(),
 });
 export type Adapter = z.infer<typeof AdapterSchema>;
@@ -93,13 +94,13 @@ export type Station = z.infer<typeof StationSchema>;
 /** What the KSU puts on one pair of one station port. */
 export const KsuLeadSchema = z.discriminatedUnion('kind', [
   /** Line talk pair: tip and ring of the line. */
-  z.object({ kind: z.literal('line-talk'), line: z.number().int().min(1) }),
+  z.object({ kind: z.literal('line-talk'), line: z.number().int().min(1).max(30) }),
   /** Line A-lead pair: tip = A, ring = A1 (ground). */
-  z.object({ kind: z.literal('line-a'), line: z.number().int().min(1) }),
+  z.object({ kind: z.literal('line-a'), line: z.number().int().min(1).max(30) }),
   /** Line lamp pair: tip = L, ring = LG. */
-  z.object({ kind: z.literal('line-lamp'), line: z.number().int().min(1) }),
+  z.object({ kind: z.literal('line-lamp'), line: z.number().int().min(1).max(30) }),
   /** Line A-lead and lamp lead on one pair: tip = A, ring = L (our own scheme for lines 6–9 of the ten-key set). */
-  z.object({ kind: z.literal('line-a-lamp'), line: z.number().int().min(1) }),
+  z.object({ kind: z.literal('line-a-lamp'), line: z.number().int().min(1).max(30) }),
   /** Intercom buzzer output for one station. */
   z.object({ kind: z.literal('buzzer'), station: PartIdSchema }),
 ]);
@@ -107,7 +108,7 @@ export type KsuLead = z.infer<typeof KsuLeadSchema>;
 
 export const CrossConnectSchema = z.object({
   /** Station port number on the KSU, 1-based. */
-  port: z.number().int().min(1),
+  port: z.number().int().min(1).max(24),
   pair: PairNumberSchema,
   lead: KsuLeadSchema,
 });
@@ -121,12 +122,12 @@ export const KsuSchema = z.object({
   /** Number of station ports (25-pair jacks) on the KSU. */
   ports: z.number().int().min(1).max(24).default(4),
   /** Pair-by-pair cross-connect of the station ports. When absent the standard station plan is used. */
-  crossConnect: z.array(CrossConnectSchema).optional(),
+  crossConnect: z.array(CrossConnectSchema).max(600).optional(),
   position: PositionSchema.optional(),
 });
 export type Ksu = z.infer<typeof KsuSchema>;
 
-export const PortRefSchema = z.object({ part: PartIdSchema, port: z.string().min(1) });
+export const PortRefSchema = z.object({ part: PartIdSchema, port: z.string().min(1).max(40) });
 export type PortRef = z.infer<typeof PortRefSchema>;
 
 /** One 25-pair cable, pin for pin, from a plug to a jack. */
@@ -145,7 +146,7 @@ export const RequiredFunctionsSchema = z.object({
   /** An intercom call to a station buzzes the set assigned to it. */
   intercomPerStation: z.boolean().default(true),
   /** Sets whose hands-free add-on must keep working. */
-  handsFreeSets: z.array(PartIdSchema).default([]),
+  handsFreeSets: z.array(PartIdSchema).max(200).default([]),
 });
 export type RequiredFunctions = z.infer<typeof RequiredFunctionsSchema>;
 
