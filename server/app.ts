@@ -9,15 +9,20 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pino, type Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
+import { accountRoutes } from './account/account.routes';
 import { adminRoutes } from './admin/admin.routes';
-import { loadSession } from './http/auth.middleware';
+import { auditRepo } from './admin/audit.repo';
 import { authRoutes } from './auth/auth.routes';
 import { authService } from './auth/auth.service';
-import { createLucia } from './auth/lucia';
+import { sessionService } from './auth/sessions';
+import { sessionsRepo } from './auth/sessions.repo';
+import { signInThrottle } from './auth/sign-in-throttle';
+import { tokensRepo } from './auth/tokens.repo';
+import { loadSession } from './http/auth.middleware';
 import type { Config } from './config';
 import type { Database } from './db/database';
 import { healthRoutes } from './health.routes';
-import { apiNotFound, errorHandler } from './http/error-handler';
+import { apiNotFound, errorHandler, sendError } from './http/error-handler';
 import { originCheck } from './http/origin-check';
 import { accountWriteLimit } from './http/rate-limit';
 import type { Mailer } from './mail/mailer';
@@ -27,6 +32,17 @@ import { usersRepo } from './users/users.repo';
 
 /** Big enough for a plan with hundreds of parts and their positions. */
 export const JSON_LIMIT = '1mb';
+
+const PERMISSIONS_POLICY = [
+  'camera=()',
+  'microphone=()',
+  'geolocation=()',
+  'payment=()',
+  'usb=()',
+  'serial=()',
+  'bluetooth=()',
+  'interest-cohort=()',
+].join(', ');
 
 export const DEFAULT_CLIENT_DIR = fileURLToPath(new URL('../dist', import.meta.url));
 
@@ -41,10 +57,24 @@ export interface AppDeps {
 
 export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIENT_DIR }: AppDeps): Express {
   const log = logger ?? pino({ level: config.logLevel });
-  const lucia = createLucia(db, config);
   const users = usersRepo(db);
   const plans = plansRepo(db);
-  const auth = authService({ users, plans, mailer, logger: log, publicOrigin: config.publicOrigin });
+  const sessions = sessionService(sessionsRepo(db), users, {
+    absoluteHours: config.sessionAbsoluteHours,
+    idleHours: config.sessionIdleHours,
+    secure: config.sessionSecure,
+  });
+  const auth = authService({
+    users,
+    plans,
+    tokens: tokensRepo(db),
+    throttle: signInThrottle(db, config.signInThrottle),
+    mailer,
+    logger: log,
+    publicOrigin: config.publicOrigin,
+    emailVerification: config.emailVerification,
+  });
+  const audit = auditRepo(db);
 
   const app = express();
   app.disable('x-powered-by');
@@ -74,6 +104,11 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
       strictTransportSecurity: config.sessionSecure,
     }),
   );
+  app.use((_req, res, next) => {
+    // Powerful browser features the app never uses stay off, for it and anything it embeds.
+    res.setHeader('Permissions-Policy', PERMISSIONS_POLICY);
+    next();
+  });
   app.use(
     pinoHttp({
       logger: log,
@@ -92,15 +127,16 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
 
   const api = express.Router();
   api.use(express.json({ limit: JSON_LIMIT }));
-  api.use(loadSession(lucia));
+  api.use(loadSession(sessions));
   api.use(originCheck(config.publicOrigin));
   api.use((_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
   api.use('/health', healthRoutes(db));
-  api.use('/auth', authRoutes(auth, lucia, config.authRateLimit));
-  api.use('/admin', adminRoutes(users));
+  api.use('/auth', authRoutes(auth, sessions, config.authRateLimit));
+  api.use('/account', accountRoutes({ auth, sessions, users, plans }));
+  api.use('/admin', adminRoutes({ users, audit, auth, sessions }));
   api.use('/plans', accountWriteLimit(config.planWritesPerMinute), plansRoutes(plans));
   api.use(apiNotFound);
   app.use('/api', api);
@@ -120,6 +156,12 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
       res.sendFile(indexHtml);
     });
   }
+
+  // Outside /api only GET serves pages; other methods get the API's error shape, not an HTML page.
+  app.use((req, res, next) => {
+    if (req.method === 'GET' || req.method === 'HEAD') return next();
+    sendError(res, 404, 'NOT_FOUND', `There is no route ${req.method} ${req.path}.`);
+  });
 
   app.use(errorHandler);
   return app;

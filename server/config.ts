@@ -14,18 +14,31 @@ const Port = z.coerce
   .min(0, 'Use a port from 0 to 65535')
   .max(65535, 'Use a port from 0 to 65535');
 
+const Hours = z.coerce
+  .number({ error: 'Use a number of hours' })
+  .positive('Use more than 0 hours')
+  .max(8760, 'Use at most 8760 hours (a year)');
+
+const Count = (what: string) =>
+  z.coerce.number({ error: `Use a number of ${what}` }).int().min(1, `Allow at least 1 ${what}`);
+
 const EnvSchema = z.object({
   PORT: Port.default(3000),
   // Loopback by default: a fresh clone is not reachable from the network until someone chooses so.
   HOST: z.string().trim().min(1, 'HOST may not be empty').default('127.0.0.1'),
   DATABASE_FILE: z.string().trim().min(1, 'DATABASE_FILE may not be empty').default('data/leadbench.sqlite'),
   SESSION_SECURE: Bool.default(false),
-  SESSION_DAYS: z.coerce
-    .number({ error: 'Use a number of days' })
-    .int('Use a whole number of days')
-    .min(1, 'Use 1 to 365 days')
-    .max(365, 'Use 1 to 365 days')
-    .default(30),
+  /** Replaced by the two SESSION_*_HOURS variables; refused so an old setting is not silently ignored. */
+  SESSION_DAYS: z
+    .never({ error: 'SESSION_DAYS was replaced: use SESSION_ABSOLUTE_HOURS and SESSION_IDLE_HOURS' })
+    .optional(),
+  /** A session ends this many hours after sign-in, however busy. */
+  SESSION_ABSOLUTE_HOURS: Hours.default(720),
+  /** A session ends after this many hours without a request. */
+  SESSION_IDLE_HOURS: Hours.default(168),
+  NODE_ENV: z.string().optional(),
+  /** Sign-up sends a confirmation link before the account can sign in. Default: on in production. */
+  EMAIL_VERIFICATION: Bool.optional(),
   PUBLIC_ORIGIN: z
     .url({ protocol: /^https?$/, error: 'Use an origin like https://bench.example.org' })
     .optional(),
@@ -33,14 +46,21 @@ const EnvSchema = z.object({
   MAIL_HOST: z.string().trim().min(1).optional(),
   MAIL_PORT: Port.optional(),
   MAIL_FROM: z.string().trim().min(3).default('Leadbench <bench@leadbench.test>'),
-  SEED_DEMO: Bool.default(true),
-  /** Proxies in front of the app whose X-Forwarded-For may be believed: false, true, or a hop count. */
+  /** Demo accounts on an empty database. Default: on, except with NODE_ENV=production. */
+  SEED_DEMO: Bool.optional(),
+  /**
+   * Reverse proxies in front of the app, as a hop count: the client address is taken that many entries
+   * from the right of X-Forwarded-For, so entries a client adds itself are never believed.
+   */
   TRUST_PROXY: z
     .string()
-    .regex(/^(true|false|\d{1,2})$/, { error: 'Use true, false or a number of proxy hops' })
-    .default('false')
-    .transform((v) => (v === 'true' ? true : v === 'false' ? false : Number(v))),
-  /** Sign-in and sign-up attempts allowed per client address in one 15-minute window. */
+    .regex(/^(false|\d{1,2})$/, { error: 'Use a number of proxy hops (0 when there is no proxy)' })
+    .default('0')
+    .transform((v) => (v === 'false' ? 0 : Number(v))),
+  /** Failed sign-ins per account, and per client address, in one 15-minute window. */
+  SIGN_IN_FAILURES_PER_ACCOUNT: Count('failures').default(10),
+  SIGN_IN_FAILURES_PER_ADDRESS: Count('failures').default(100),
+  /** Sign-up and reset-mail requests allowed per client address in one 15-minute window. */
   RATE_LIMIT_MAX: z.coerce
     .number({ error: 'Use a number of attempts' })
     .int()
@@ -61,7 +81,11 @@ export interface Config {
   host: string;
   databaseFile: string;
   sessionSecure: boolean;
-  sessionDays: number;
+  sessionAbsoluteHours: number;
+  sessionIdleHours: number;
+  production: boolean;
+  emailVerification: boolean;
+  signInThrottle: { windowMs: number; perAccount: number; perAddress: number };
   /** Scheme, host and port browsers use to reach the app; state-changing requests must come from it. */
   publicOrigin: string;
   logLevel: z.infer<typeof EnvSchema>['LOG_LEVEL'];
@@ -71,8 +95,8 @@ export interface Config {
   seedDemo: boolean;
   authRateLimit: { windowMs: number; limit: number };
   planWritesPerMinute: number;
-  /** Express "trust proxy": client addresses (for rate limits and logs) come from X-Forwarded-For. */
-  trustProxy: boolean | number;
+  /** Express "trust proxy" hop count: client addresses (for limits and logs) from X-Forwarded-For. */
+  trustProxy: number;
   /** Folder of the built client, when not the default dist/. */
   clientDir?: string;
 }
@@ -88,18 +112,27 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     throw new ConfigError(`Invalid configuration:\n${lines.join('\n')}`);
   }
   const e = parsed.data;
+  const production = e.NODE_ENV === 'production';
   const origin = e.PUBLIC_ORIGIN ? new URL(e.PUBLIC_ORIGIN).origin : `http://localhost:${e.PORT}`;
   return {
     port: e.PORT,
     host: e.HOST,
     databaseFile: e.DATABASE_FILE,
     sessionSecure: e.SESSION_SECURE,
-    sessionDays: e.SESSION_DAYS,
+    sessionAbsoluteHours: e.SESSION_ABSOLUTE_HOURS,
+    sessionIdleHours: Math.min(e.SESSION_IDLE_HOURS, e.SESSION_ABSOLUTE_HOURS),
+    production,
+    emailVerification: e.EMAIL_VERIFICATION ?? production,
+    signInThrottle: {
+      windowMs: 15 * 60_000,
+      perAccount: e.SIGN_IN_FAILURES_PER_ACCOUNT,
+      perAddress: e.SIGN_IN_FAILURES_PER_ADDRESS,
+    },
     publicOrigin: origin,
     logLevel: e.LOG_LEVEL,
     mail: e.MAIL_HOST ? { host: e.MAIL_HOST, port: e.MAIL_PORT ?? 25 } : null,
     mailFrom: e.MAIL_FROM,
-    seedDemo: e.SEED_DEMO,
+    seedDemo: e.SEED_DEMO ?? !production,
     authRateLimit: { windowMs: 15 * 60_000, limit: e.RATE_LIMIT_MAX },
     planWritesPerMinute: e.PLAN_WRITES_PER_MINUTE,
     trustProxy: e.TRUST_PROXY,

@@ -6,11 +6,13 @@ import type { AddressInfo } from 'node:net';
 import { pino } from 'pino';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../db/seeds/demo-accounts.seed';
 import { createApp } from './app';
-import { KnexAdapter } from './auth/knex-adapter';
+import { sessionService } from './auth/sessions';
+import { sessionsRepo } from './auth/sessions.repo';
 import { ConfigError, loadConfig, type Config } from './config';
 import { isDatabaseEmpty, migrateLatest, openDatabase } from './db/database';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
+import { usersRepo } from './users/users.repo';
 import { seedDemo } from './seed-demo';
 
 let config: Config;
@@ -30,7 +32,8 @@ const db = openDatabase(config.databaseFile);
 const applied = await migrateLatest(db);
 if (applied.length) logger.info({ migrations: applied }, 'database migrated');
 
-if (config.seedDemo && (await isDatabaseEmpty(db))) {
+const empty = await isDatabaseEmpty(db);
+if (config.seedDemo && empty) {
   const result = await seedDemo(db);
   logger.info({ accounts: result.accounts }, 'demo accounts created');
   if (result.planSkipped) logger.warn(`demo plan not added: ${result.planSkipped}`);
@@ -50,10 +53,14 @@ const mailTarget = config.mail ?? { host: fakeSmtp!.host, port: fakeSmtp!.port }
 const mailer = createMailer({ ...mailTarget, from: config.mailFrom, plain: !config.mail });
 
 // Expired sessions are refused anyway; sweeping them keeps the table small.
-const sessions = new KnexAdapter(db);
+const sessions = sessionService(sessionsRepo(db), usersRepo(db), {
+  absoluteHours: config.sessionAbsoluteHours,
+  idleHours: config.sessionIdleHours,
+  secure: config.sessionSecure,
+});
 const sweepSessions = () =>
   sessions
-    .deleteExpiredSessions()
+    .sweep()
     .catch((err: unknown) => logger.error({ err }, 'expired sessions not removed'));
 await sweepSessions();
 const sessionSweep = setInterval(sweepSessions, 60 * 60_000);
@@ -65,6 +72,9 @@ const server = app.listen(config.port, config.host, () => {
   const loopback = ['0.0.0.0', '::', '127.0.0.1', '::1', 'localhost'].includes(config.host);
   const shown = loopback ? 'localhost' : config.host;
   console.log(`\nLeadbench is running at http://${shown}:${port}/`);
+  if (empty && !config.seedDemo) {
+    console.log('The database has no accounts. Create the first admin: npm run -s admin:create -- you@example.org');
+  }
   if (config.seedDemo) {
     console.log(`Demo sign-ins (password ${DEMO_PASSWORD}):`);
     for (const a of DEMO_ACCOUNTS) console.log(`  ${a.role.padEnd(10)} ${a.email}`);

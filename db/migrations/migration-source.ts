@@ -4,9 +4,11 @@
  */
 import type { Knex } from 'knex';
 import * as initial from './20261202_0001_initial';
+import * as accounts from './20261202_0002_accounts';
 
 const MIGRATIONS: Record<string, Knex.Migration> = {
   '20261202_0001_initial': initial,
+  '20261202_0002_accounts': accounts,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

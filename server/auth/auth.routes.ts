@@ -1,67 +1,126 @@
-/** Sign-up, sign-in, sign-out, the current session and password change. */
-import { Router, type Response } from 'express';
+/**
+ * Sign-up, sign-in (with its second factor), sign-out, the current session, password change and the
+ * mail-link endpoints (verify, forgot, reset). Public unless marked.
+ */
+import { Router, type Request, type Response } from 'express';
+import {
+  ForgotPasswordSchema,
+  ResetPasswordSchema,
+  TokenBodySchema,
+  TotpCodeSchema,
+} from '../../shared/schemas/account.schema';
 import {
   ChangePasswordSchema,
   SignInSchema,
   SignUpSchema,
   type SessionInfo,
-  type User,
 } from '../../shared/schemas/auth.schema';
-import { authRateLimit, type RateLimitOptions } from '../http/rate-limit';
+import { currentUser, requireSignedIn } from '../http/auth.middleware';
+import { HttpError } from '../http/http-error';
+import { accountWriteLimit, authRateLimit, type RateLimitOptions } from '../http/rate-limit';
 import { parseBody } from '../http/validate';
-import { currentUser, requireUser } from '../http/auth.middleware';
 import type { AuthService } from './auth.service';
-import type { AppLucia } from './lucia';
+import type { SessionService } from './sessions';
 
-export function authRoutes(auth: AuthService, lucia: AppLucia, rateLimit: RateLimitOptions): Router {
+export function authRoutes(auth: AuthService, sessions: SessionService, rateLimit: RateLimitOptions): Router {
   const router = Router();
-  // One budget for sign-in and sign-up together, per client address.
+  // Sign-up and the mail-sending routes share one budget per client address. Sign-in is throttled by
+  // failures only (see sign-in-throttle.ts).
   const limiter = authRateLimit(rateLimit);
+  const passwordLimit = accountWriteLimit(5, 15 * 60_000, 'Too many password changes.');
 
-  async function startSession(res: Response, user: User): Promise<void> {
-    const session = await lucia.createSession(user.id, {});
-    res.appendHeader('Set-Cookie', lucia.createSessionCookie(session.id).serialize());
-  }
+  const address = (req: Request) => req.ip ?? 'unknown';
 
-  /** Ends the session this request came with, if any; a following `startSession` replaces the cookie. */
+  /** Ends the session this request came with, if any; a following `start` replaces the cookie. */
   async function dropCurrentSession(res: Response): Promise<void> {
-    if (res.locals.session) await lucia.invalidateSession(res.locals.session.id);
+    if (res.locals.session) await sessions.end(res.locals.session.id);
   }
 
   router.post('/sign-up', limiter, async (req, res) => {
     const input = parseBody(SignUpSchema, req);
     const user = await auth.signUp(input);
+    if (!user) {
+      res.status(202).json({ user: null, verificationSent: true } satisfies SessionInfo);
+      return;
+    }
     await dropCurrentSession(res);
-    await startSession(res, user);
+    await sessions.start(res, user, { userAgent: req.get('user-agent') });
     res.status(201).json({ user } satisfies SessionInfo);
   });
 
-  router.post('/sign-in', limiter, async (req, res) => {
+  router.post('/sign-in', async (req, res) => {
     const input = parseBody(SignInSchema, req);
-    const user = await auth.signIn(input);
+    const { user, row } = await auth.signIn(input, address(req));
     // A new session id on every sign-in, so an id planted before sign-in is worthless.
     await dropCurrentSession(res);
-    await startSession(res, user);
-    res.json({ user } satisfies SessionInfo);
+    const pending = row.totp_enabled_at !== null;
+    await sessions.start(res, user, { userAgent: req.get('user-agent'), pendingSecondFactor: pending });
+    if (pending) {
+      res.json({ user: null, secondFactorRequired: true } satisfies SessionInfo);
+      return;
+    }
+    await auth.recordSignIn(user.id);
+    const mustChangePassword = Boolean(row.must_change_password);
+    res.json({ user, ...(mustChangePassword ? { mustChangePassword } : {}) } satisfies SessionInfo);
+  });
+
+  /** The TOTP code after a password sign-in. */
+  router.post('/second-factor', async (req, res) => {
+    const session = res.locals.session;
+    if (!session?.pendingSecondFactor) throw new HttpError(401, 'UNAUTHENTICATED', 'Sign in with your password first.');
+    const { code } = parseBody(TotpCodeSchema, req);
+    await auth.checkTotp(session.userId, code, address(req));
+    // A fresh id once fully signed in.
+    await sessions.end(session.id);
+    const found = await sessions.validateUser(session.userId);
+    await sessions.start(res, found, { userAgent: req.get('user-agent') });
+    await auth.recordSignIn(found.id);
+    res.json({ user: found } satisfies SessionInfo);
   });
 
   router.post('/sign-out', async (_req, res) => {
     await dropCurrentSession(res);
-    res.appendHeader('Set-Cookie', lucia.createBlankSessionCookie().serialize());
+    sessions.clearCookie(res);
     res.status(204).end();
   });
 
   router.get('/session', (_req, res) => {
-    res.json({ user: res.locals.user } satisfies SessionInfo);
+    const session = res.locals.session;
+    res.json({
+      user: res.locals.user,
+      ...(session?.pendingSecondFactor ? { secondFactorRequired: true } : {}),
+      ...(res.locals.user && session?.mustChangePassword ? { mustChangePassword: true } : {}),
+    } satisfies SessionInfo);
   });
 
-  router.post('/password', requireUser, async (req, res) => {
+  router.post('/password', requireSignedIn, passwordLimit, async (req, res) => {
     const input = parseBody(ChangePasswordSchema, req);
     const user = currentUser(res);
     await auth.changePassword(user.id, input);
     // Every other device is signed out; this one gets a fresh session.
-    await lucia.invalidateUserSessions(user.id);
-    await startSession(res, user);
+    await sessions.endAll(user.id);
+    await sessions.start(res, user, { userAgent: req.get('user-agent') });
+    res.status(204).end();
+  });
+
+  router.post('/verify-email', async (req, res) => {
+    const { token } = parseBody(TokenBodySchema, req);
+    await auth.verifyEmail(token);
+    res.status(204).end();
+  });
+
+  router.post('/forgot-password', limiter, async (req, res) => {
+    const { email } = parseBody(ForgotPasswordSchema, req);
+    await auth.forgotPassword(email);
+    // The same answer whether or not the address has an account.
+    res.status(202).end();
+  });
+
+  router.post('/reset-password', limiter, async (req, res) => {
+    const input = parseBody(ResetPasswordSchema, req);
+    const userId = await auth.resetPassword(input);
+    await sessions.endAll(userId);
+    sessions.clearCookie(res);
     res.status(204).end();
   });
 

@@ -44,12 +44,22 @@ function clientErrorStatus(err: unknown): number | null {
   return typeof value === 'number' && value >= 400 && value < 500 ? value : null;
 }
 
+/** node:zlib errors carry codes like Z_DATA_ERROR (gzip, deflate) or ERR__ERROR_FORMAT_… (br). */
+const isZlibError = (err: unknown): boolean =>
+  typeof err === 'object' &&
+  err !== null &&
+  typeof (err as { errno?: unknown }).errno === 'number' &&
+  /^(Z_|ERR__)/.test(String((err as { code?: unknown }).code ?? ''));
+
 export const apiNotFound: RequestHandler = (req, res) => {
   sendError(res, 404, 'NOT_FOUND', `There is no API route ${req.method} ${req.path}.`);
 };
 
 export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
   if (res.headersSent) return next(err);
+  if (err instanceof HttpError && 'retryAfterMs' in err && typeof err.retryAfterMs === 'number') {
+    res.setHeader('Retry-After', String(Math.ceil(err.retryAfterMs / 1000)));
+  }
   if (err instanceof HttpError)
     return sendError(res, err.status, err.code, err.message, err.details, err.problemCount);
   if (err instanceof ZodError) {
@@ -70,6 +80,10 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
       case 'request.size.invalid':
         return sendError(res, 400, 'BAD_JSON', 'The request body arrived incomplete.');
     }
+  }
+  if (isZlibError(err)) {
+    // body-parser hands on the decompressor's error for a damaged gzip, deflate or br body.
+    return sendError(res, 400, 'BAD_BODY', 'The compressed request body is damaged.');
   }
   const status = clientErrorStatus(err);
   if (status !== null) {

@@ -2,9 +2,9 @@
  * Cross-site request check for state-changing requests (POST, PUT, PATCH, DELETE).
  *
  * A browser always sends Origin on a cross-origin fetch and on form posts, so a request whose Origin
- * (or, failing that, Referer) names another site is refused with 403 BAD_ORIGIN. Allowed are the
- * configured public origin and the origin the request itself was addressed to (its Host header), which
- * covers the Vite dev proxy and 127.0.0.1 vs localhost.
+ * (or, failing that, Referer) names another site is refused with 403 BAD_ORIGIN. Only the configured
+ * public origin is allowed: the Host header is chosen by whoever sends the request, so it proves nothing.
+ * (In development the Vite proxy forwards the browser's Origin, which must then be PUBLIC_ORIGIN.)
  *
  * Requests with neither header come from non-browser clients (curl, the CLI, tests) and are let
  * through: they cannot carry a victim's cookie without the victim's browser, and the session cookie is
@@ -29,11 +29,7 @@ export function originCheck(publicOrigin: string): RequestHandler {
     const claimed = req.headers.origin ?? req.headers.referer;
     if (claimed === undefined) return next();
     const origin = originOf(claimed);
-    const host = req.headers.host;
-    const allowed =
-      origin !== null &&
-      (origin === publicOrigin || (host !== undefined && new URL(origin).host === host.toLowerCase()));
-    if (!allowed)
+    if (origin !== publicOrigin)
       throw new HttpError(403, 'BAD_ORIGIN', 'This request came from another site and was refused.');
     next();
   };

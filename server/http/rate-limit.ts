@@ -22,19 +22,20 @@ export function authRateLimit(options: RateLimitOptions) {
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
- * Writes (POST, PUT, PATCH, DELETE) per signed-in account per minute. Requests without a user are left
+ * Writes (POST, PUT, PATCH, DELETE) per signed-in account per window. Requests without a user are left
  * to the route, which answers 401.
  */
-export function accountWriteLimit(perMinute: number) {
+export function accountWriteLimit(limit: number, windowMs = 60_000, message = 'Too many changes in a short time.') {
+  const minutes = Math.max(1, Math.round(windowMs / 60_000));
   return rateLimit({
-    windowMs: 60_000,
-    limit: perMinute,
+    windowMs,
+    limit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     skip: (req, res) => SAFE_METHODS.has(req.method) || !res.locals.user,
     keyGenerator: (_req, res) => `user:${res.locals.user!.id}`,
     handler: (_req, res) => {
-      sendError(res, 429, 'RATE_LIMITED', 'Too many changes in a short time. Wait a minute and try again.');
+      sendError(res, 429, 'RATE_LIMITED', `${message} Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`);
     },
   });
 }

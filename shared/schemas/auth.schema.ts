@@ -1,5 +1,6 @@
 /** Accounts, roles and sign-in: shared by the API and the forms. */
 import { z } from 'zod';
+import { passwordStrength } from './password-strength';
 
 export const ROLES = ['restorer', 'instructor', 'trainee', 'admin'] as const;
 export const RoleSchema = z.enum(ROLES);
@@ -12,11 +13,15 @@ export const EmailSchema = z
   .max(254, 'That e-mail address is too long')
   .pipe(z.email({ error: 'Enter a valid e-mail address' }));
 
-/** OWASP ASVS 2.1.1/2.1.2: at least 12 characters, at most 128. */
+/** OWASP ASVS 2.1.1/2.1.2: at least 12 characters, at most 128; 2.1.7/2.1.8: checked for strength. */
 export const PasswordSchema = z
   .string({ error: 'Enter a password' })
   .min(12, 'Use at least 12 characters')
-  .max(128, 'Use at most 128 characters');
+  .max(128, 'Use at most 128 characters')
+  .superRefine((value, ctx) => {
+    const { advice } = passwordStrength(value);
+    if (advice) ctx.addIssue({ code: 'custom', message: advice });
+  });
 
 export const DisplayNameSchema = z
   .string({ error: 'Enter your name' })
@@ -57,7 +62,15 @@ export const UserSchema = z.object({
 });
 export type User = z.infer<typeof UserSchema>;
 
-export const SessionInfoSchema = z.object({ user: UserSchema.nullable() });
+export const SessionInfoSchema = z.object({
+  user: UserSchema.nullable(),
+  /** Sign-up with e-mail verification: no session yet, a link went to the address. */
+  verificationSent: z.boolean().optional(),
+  /** Password accepted; the TOTP code is still owed (POST /api/auth/second-factor). */
+  secondFactorRequired: z.boolean().optional(),
+  /** The password was set by someone else (admin:create, reset by an admin) and must be changed first. */
+  mustChangePassword: z.boolean().optional(),
+});
 export type SessionInfo = z.infer<typeof SessionInfoSchema>;
 
 export const UserListQuerySchema = z.object({
@@ -70,8 +83,17 @@ export const UserListQuerySchema = z.object({
 });
 export type UserListQuery = z.infer<typeof UserListQuerySchema>;
 
+/** What an admin sees of each account. */
+export const AdminUserSchema = UserSchema.extend({
+  emailVerified: z.boolean(),
+  disabled: z.boolean(),
+  totpEnabled: z.boolean(),
+  lastSignInAt: z.string().nullable(),
+});
+export type AdminUser = z.infer<typeof AdminUserSchema>;
+
 export const UserListSchema = z.object({
-  items: z.array(UserSchema),
+  items: z.array(AdminUserSchema),
   total: z.number().int(),
   page: z.number().int(),
   pageSize: z.number().int(),

@@ -13,6 +13,12 @@ export const ERROR_CODES = [
   'BAD_ORIGIN',
   'PAYLOAD_TOO_LARGE',
   'BAD_JSON',
+  'BAD_BODY',
+  'EMAIL_NOT_VERIFIED',
+  'ACCOUNT_DISABLED',
+  'SECOND_FACTOR_REQUIRED',
+  'PASSWORD_CHANGE_REQUIRED',
+  'BAD_TOKEN',
   'INTERNAL',
 ] as const;
 export const ErrorCodeSchema = z.enum(ERROR_CODES);

@@ -1,3 +1,5 @@
+export * from './account.schema';
 export * from './auth.schema';
 export * from './error.schema';
 export * from './plans.schema';
+export * from './password-strength';

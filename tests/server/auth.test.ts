@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ErrorBodySchema } from '../../shared/schemas/error.schema';
 import { PlanListSchema } from '../../shared/schemas/plans.schema';
 import { SessionInfoSchema } from '../../shared/schemas/auth.schema';
-import { SESSION_COOKIE } from '../../server/auth/lucia';
+import { SESSION_COOKIE } from '../../server/auth/sessions';
 import {
   signedInAgent,
   startTestServer,

@@ -24,6 +24,9 @@ vi.setConfig({ testTimeout: 30_000, hookTimeout: 30_000 });
 
 export const TEST_PASSWORD = 'correct horse battery'; // 21 characters: above the 12-character minimum (OWASP ASVS 2.1.1)
 
+/** A fixed base32 TOTP secret for test accounts (RFC 4648 §6 alphabet). */
+export const TEST_TOTP_SECRET = 'JBSWY3DPEHPK3PXPJBSWY3DPEHPK3PXP';
+
 export interface TestServer {
   app: Express;
   db: Database;
@@ -84,6 +87,8 @@ export async function signedInAgent(
   expect(res.status).toBe(201);
   let user = SessionInfoSchema.parse(res.body).user!;
   if (role !== 'restorer') user = (await usersRepo(server.db).setRole(user.id, role))!;
+  // Admin routes need a second factor (ASVS 4.0.3 V2.8); test admins are enrolled directly.
+  if (role === 'admin') await usersRepo(server.db).setTotpSecret(user.id, TEST_TOTP_SECRET, true);
   return { agent, user };
 }
 
