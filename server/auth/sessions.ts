@@ -68,7 +68,7 @@ export function sessionService(repo: SessionsRepo, users: UsersRepo, policy: Ses
       return { session, user: toUser(found.user) };
     },
     clearCookie(res) {
-      res.clearCookie(cookieName, cookieOptions);
+      res.cookie(cookieName, '', { ...cookieOptions, maxAge: 0 });
     },
   };
 

@@ -163,12 +163,19 @@ describe('configuration', () => {
       host: '127.0.0.1',
       databaseFile: 'data/leadbench.sqlite',
       sessionSecure: false,
-      sessionDays: 30,
+      sessionAbsoluteHours: 720,
+      sessionIdleHours: 168,
+      emailVerification: false,
       publicOrigin: 'http://localhost:3000',
       mail: null,
       seedDemo: true,
-      trustProxy: false,
+      trustProxy: 0,
     });
+  });
+
+  it('seeds nothing and verifies e-mail by default in production (ASVS 4.0.3 V2.5.4, V14.1.1)', () => {
+    expect(loadConfig({ NODE_ENV: 'production' })).toMatchObject({ seedDemo: false, emailVerification: true });
+    expect(loadConfig({ NODE_ENV: 'production', SEED_DEMO: 'true' }).seedDemo).toBe(true);
   });
 
   it('derives the public origin from PORT and trims a given one to its origin', () => {
@@ -184,9 +191,9 @@ describe('configuration', () => {
     // messages from server/config.ts
     expect(attempt).toThrow(/PORT: Use a port number/);
     expect(attempt).toThrow(/SESSION_SECURE: Use true or false/);
-    expect(() => loadConfig({ TRUST_PROXY: 'sometimes' })).toThrow(
-      /TRUST_PROXY: Use true, false or a number/,
-    );
+    // ASVS 4.0.3 V2.2.1: "true" would believe any X-Forwarded-For a client makes up
+    expect(() => loadConfig({ TRUST_PROXY: 'true' })).toThrow(/TRUST_PROXY: Use a number of proxy hops/);
+    expect(() => loadConfig({ SESSION_DAYS: '30' })).toThrow(/SESSION_DAYS was replaced/);
     expect(loadConfig({ TRUST_PROXY: '2' }).trustProxy).toBe(2);
     expect(attempt).toThrow(/PUBLIC_ORIGIN: Use an origin like https:\/\/bench\.example\.org/);
   });
