@@ -24,10 +24,10 @@ export function tokensRepo(db: Database) {
     /** Takes the token out (single use) and returns it if it was live and of that purpose. */
     async consume(id: string, purpose: TokenPurpose, now: number): Promise<TokenRow | null> {
       return db.transaction(async (trx) => {
-        const row = await trx<TokenRow>('account_tokens').where({ id }).first();
+        const row = await trx<TokenRow>('account_tokens').where({ id, purpose }).first();
         if (!row) return null;
         await trx('account_tokens').where({ id }).delete();
-        return row.purpose === purpose && Number(row.expires_at) > now ? row : null;
+        return Number(row.expires_at) > now ? row : null;
       });
     },
   };

@@ -10,7 +10,7 @@ import { pino } from 'pino';
 import request from 'supertest';
 import { expect, vi } from 'vitest';
 import type { Plan } from '../../shared/engine/document/plan.schema';
-import { SessionInfoSchema, type Role, type User } from '../../shared/schemas/auth.schema';
+import { UserSchema, type Role, type User } from '../../shared/schemas/auth.schema';
 import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import { migrateLatest, openDatabase, type Database } from '../../server/db/database';
@@ -84,8 +84,16 @@ export async function signedInAgent(
   const res = await agent
     .post('/api/auth/sign-up')
     .send({ email, displayName: `Test ${role}`, password: TEST_PASSWORD });
-  expect(res.status).toBe(201);
-  let user = SessionInfoSchema.parse(res.body).user!;
+  if (res.status === 202) {
+    // E-mail verification is on: follow the mailed link, then sign in.
+    const token = tokenIn((await mailTo(server, email, /Confirm/)).raw);
+    expect((await agent.post('/api/auth/verify-email').send({ token })).status).toBe(204);
+    const signIn = await agent.post('/api/auth/sign-in').send({ email, password: TEST_PASSWORD });
+    expect(signIn.status).toBe(200);
+  } else {
+    expect(res.status).toBe(201);
+  }
+  let user = UserSchema.parse((await agent.get('/api/auth/session')).body.user);
   if (role !== 'restorer') user = (await usersRepo(server.db).setRole(user.id, role))!;
   // Admin routes need a second factor (ASVS 4.0.3 V2.8); test admins are enrolled directly.
   if (role === 'admin') await usersRepo(server.db).setTotpSecret(user.id, TEST_TOTP_SECRET, true);
@@ -130,4 +138,29 @@ export function planWithSets(n: number, name = 'Front office'): Plan {
     });
   }
   return plan;
+}
+
+/** Waits for the newest mail to `to` (optionally matching a subject) and returns it. */
+export async function mailTo(server: TestServer, to: string, subject?: RegExp) {
+  return vi.waitFor(
+    () => {
+      const found = server.smtp.messages.findLast((m) => m.to.includes(to) && (!subject || subject.test(m.subject)));
+      if (!found) throw new Error(`no mail to ${to} yet`);
+      return found;
+    },
+    { timeout: 5000 },
+  );
+}
+
+/** The message with RFC 2045 §6.7 quoted-printable undone (soft line breaks, =XX escapes). */
+export const decodeMail = (raw: string): string =>
+  raw
+    .replace(/=\r?\n/g, '')
+    .replace(/=([0-9A-F]{2})/g, (_m, hex: string) => String.fromCharCode(parseInt(hex, 16)));
+
+/** The token of the link in a mail (`?token=` followed by 43 base64url characters). */
+export function tokenIn(raw: string): string {
+  const match = /token=([A-Za-z0-9_-]{43})/.exec(decodeMail(raw));
+  if (!match) throw new Error('no token link in the mail');
+  return match[1];
 }
