@@ -20,7 +20,10 @@ const Hours = z.coerce
   .max(8760, 'Use at most 8760 hours (a year)');
 
 const Count = (what: string) =>
-  z.coerce.number({ error: `Use a number of ${what}` }).int().min(1, `Allow at least 1 ${what}`);
+  z.coerce
+    .number({ error: `Use a number of ${what}` })
+    .int()
+    .min(1, `Allow at least 1 ${what}`);
 
 const EnvSchema = z.object({
   PORT: Port.default(3000),

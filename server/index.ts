@@ -59,9 +59,7 @@ const sessions = sessionService(sessionsRepo(db), usersRepo(db), {
   secure: config.sessionSecure,
 });
 const sweepSessions = () =>
-  sessions
-    .sweep()
-    .catch((err: unknown) => logger.error({ err }, 'expired sessions not removed'));
+  sessions.sweep().catch((err: unknown) => logger.error({ err }, 'expired sessions not removed'));
 await sweepSessions();
 const sessionSweep = setInterval(sweepSessions, 60 * 60_000);
 sessionSweep.unref();
@@ -73,7 +71,9 @@ const server = app.listen(config.port, config.host, () => {
   const shown = loopback ? 'localhost' : config.host;
   console.log(`\nLeadbench is running at http://${shown}:${port}/`);
   if (empty && !config.seedDemo) {
-    console.log('The database has no accounts. Create the first admin: npm run -s admin:create -- you@example.org');
+    console.log(
+      'The database has no accounts. Create the first admin: npm run -s admin:create -- you@example.org',
+    );
   }
   if (config.seedDemo) {
     console.log(`Demo sign-ins (password ${DEMO_PASSWORD}):`);

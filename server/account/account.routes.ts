@@ -61,7 +61,11 @@ export function accountRoutes(deps: {
       const plan = await plans.findForOwner(summary.id, id);
       if (plan) records.push(plan);
     }
-    const body: AccountExport = { exportedAt: new Date().toISOString(), account: await account(id), plans: records };
+    const body: AccountExport = {
+      exportedAt: new Date().toISOString(),
+      account: await account(id),
+      plans: records,
+    };
     res.attachment('leadbench-account.json').json(body);
   });
 

@@ -30,7 +30,8 @@ export function adminRoutes(deps: {
   const actor = (res: Response) => currentUser(res);
   /** Admins cannot lock themselves (and so possibly everyone) out of administration. */
   const notSelf = (id: string, res: Response, what: string) => {
-    if (id === actor(res).id) throw new HttpError(403, 'FORBIDDEN', `You cannot ${what} your own account. Ask another admin.`);
+    if (id === actor(res).id)
+      throw new HttpError(403, 'FORBIDDEN', `You cannot ${what} your own account. Ask another admin.`);
   };
   const target = async (id: string) => {
     const row = await users.findById(id);
@@ -53,7 +54,12 @@ export function adminRoutes(deps: {
     const before = await target(id);
     const user = await users.setRole(id, role);
     if (!user) throw notFound('That user');
-    await audit.write({ actor: actor(res), action: 'role-changed', target: user, detail: `${before.role} → ${role}` });
+    await audit.write({
+      actor: actor(res),
+      action: 'role-changed',
+      target: user,
+      detail: `${before.role} → ${role}`,
+    });
     res.json({ user });
   });
 
@@ -65,7 +71,11 @@ export function adminRoutes(deps: {
     const user = await users.setDisabled(id, disabled);
     if (!user) throw notFound('That user');
     if (disabled) await sessions.endAll(id);
-    await audit.write({ actor: actor(res), action: disabled ? 'account-disabled' : 'account-enabled', target: user });
+    await audit.write({
+      actor: actor(res),
+      action: disabled ? 'account-disabled' : 'account-enabled',
+      target: user,
+    });
     res.json({ user });
   });
 

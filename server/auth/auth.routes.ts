@@ -67,7 +67,8 @@ export function authRoutes(auth: AuthService, sessions: SessionService, rateLimi
   /** The TOTP code after a password sign-in. */
   router.post('/second-factor', async (req, res) => {
     const session = res.locals.session;
-    if (!session?.pendingSecondFactor) throw new HttpError(401, 'UNAUTHENTICATED', 'Sign in with your password first.');
+    if (!session?.pendingSecondFactor)
+      throw new HttpError(401, 'UNAUTHENTICATED', 'Sign in with your password first.');
     const { code } = parseBody(TotpCodeSchema, req);
     await auth.checkTotp(session.userId, code, address(req));
     // A fresh id once fully signed in.

@@ -60,7 +60,13 @@ export function authService(deps: AuthServiceDeps) {
     email: string | null = null,
   ): Promise<string> {
     const token = newToken();
-    await tokens.issue({ id: hashToken(token), user_id: userId, purpose, email, expires_at: Date.now() + ttlMs });
+    await tokens.issue({
+      id: hashToken(token),
+      user_id: userId,
+      purpose,
+      email,
+      expires_at: Date.now() + ttlMs,
+    });
     return token;
   }
 
@@ -93,9 +99,14 @@ export function authService(deps: AuthServiceDeps) {
           send(mail.alreadyRegistered(input.email), 'already-registered');
           return null;
         }
-        throw new HttpError(409, 'EMAIL_TAKEN', 'An account with that e-mail already exists. Sign in instead.', {
-          email: ['An account with that e-mail already exists'],
-        });
+        throw new HttpError(
+          409,
+          'EMAIL_TAKEN',
+          'An account with that e-mail already exists. Sign in instead.',
+          {
+            email: ['An account with that e-mail already exists'],
+          },
+        );
       }
       await addDemoPlan(user);
       if (deps.emailVerification) {
@@ -111,7 +122,9 @@ export function authService(deps: AuthServiceDeps) {
       const keys = [accountKey(input.email), addressKey(address)];
       await throttle.check(keys);
       const row = await users.findByEmail(input.email);
-      const ok = row ? await verifyPassword(row.password_hash, input.password) : await verifyAgainstDummy(input.password);
+      const ok = row
+        ? await verifyPassword(row.password_hash, input.password)
+        : await verifyAgainstDummy(input.password);
       if (!row || !ok) {
         await throttle.recordFailure(keys);
         throw badCredentials();
@@ -146,9 +159,14 @@ export function authService(deps: AuthServiceDeps) {
         : false;
       if (!valid) {
         await throttle.recordFailure(keys);
-        throw new HttpError(400, 'VALIDATION_FAILED', 'That code is not right. Check the time on your device.', {
-          code: ['That code is not right'],
-        });
+        throw new HttpError(
+          400,
+          'VALIDATION_FAILED',
+          'That code is not right. Check the time on your device.',
+          {
+            code: ['That code is not right'],
+          },
+        );
       }
     },
 
@@ -242,7 +260,5 @@ export function authService(deps: AuthServiceDeps) {
     },
   };
 }
-
-
 
 export type AuthService = ReturnType<typeof authService>;

@@ -18,11 +18,34 @@ export function sessionsRepo(db: Database) {
       await db('sessions').insert(row);
     },
 
+    /** One query per request: the session and its account together. */
     async findWithUser(id: string): Promise<{ session: SessionRow; user: UserRow } | null> {
-      const session = await db<SessionRow>('sessions').where({ id }).first();
-      if (!session) return null;
-      const user = await db<UserRow>('users').where({ id: session.user_id }).first();
-      return user ? { session, user } : null;
+      const row = await db('sessions')
+        .join('users', 'users.id', 'sessions.user_id')
+        .where('sessions.id', id)
+        .first(
+          'sessions.created_at as s_created_at',
+          'sessions.last_used_at as s_last_used_at',
+          'sessions.expires_at as s_expires_at',
+          'sessions.user_agent as s_user_agent',
+          'sessions.pending_second_factor as s_pending_second_factor',
+          'users.*',
+        );
+      if (!row) return null;
+      const { s_created_at, s_last_used_at, s_expires_at, s_user_agent, s_pending_second_factor, ...user } =
+        row;
+      return {
+        session: {
+          id,
+          user_id: user.id,
+          created_at: s_created_at,
+          last_used_at: s_last_used_at,
+          expires_at: s_expires_at,
+          user_agent: s_user_agent,
+          pending_second_factor: s_pending_second_factor,
+        },
+        user: user as UserRow,
+      };
     },
 
     async touch(id: string, at: number): Promise<void> {

@@ -116,7 +116,9 @@ export function sessionService(repo: SessionsRepo, users: UsersRepo, policy: Ses
           id: row.id,
           createdAt: new Date(Number(row.created_at)).toISOString(),
           lastUsedAt: new Date(Number(row.last_used_at)).toISOString(),
-          expiresAt: new Date(Math.min(Number(row.expires_at), Number(row.last_used_at) + idleMs)).toISOString(),
+          expiresAt: new Date(
+            Math.min(Number(row.expires_at), Number(row.last_used_at) + idleMs),
+          ).toISOString(),
           userAgent: row.user_agent,
           current: row.id === currentId,
         }));

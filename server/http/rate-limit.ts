@@ -25,7 +25,11 @@ const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
  * Writes (POST, PUT, PATCH, DELETE) per signed-in account per window. Requests without a user are left
  * to the route, which answers 401.
  */
-export function accountWriteLimit(limit: number, windowMs = 60_000, message = 'Too many changes in a short time.') {
+export function accountWriteLimit(
+  limit: number,
+  windowMs = 60_000,
+  message = 'Too many changes in a short time.',
+) {
   const minutes = Math.max(1, Math.round(windowMs / 60_000));
   return rateLimit({
     windowMs,
@@ -35,7 +39,12 @@ export function accountWriteLimit(limit: number, windowMs = 60_000, message = 'T
     skip: (req, res) => SAFE_METHODS.has(req.method) || !res.locals.user,
     keyGenerator: (_req, res) => `user:${res.locals.user!.id}`,
     handler: (_req, res) => {
-      sendError(res, 429, 'RATE_LIMITED', `${message} Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`);
+      sendError(
+        res,
+        429,
+        'RATE_LIMITED',
+        `${message} Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`,
+      );
     },
   });
 }

@@ -30,7 +30,9 @@ export interface Problems {
  * Turns issues into `{ "dotted.path": [messages] }` (issues without a path go under ""), keeping the
  * first MAX_PROBLEMS_LISTED paths and the total count.
  */
-export function issuesByPath(issues: readonly { path: readonly PropertyKey[] | string; message: string }[]): Problems {
+export function issuesByPath(
+  issues: readonly { path: readonly PropertyKey[] | string; message: string }[],
+): Problems {
   const details: Record<string, string[]> = {};
   let listed = 0;
   for (const issue of issues) {

@@ -40,12 +40,7 @@ export function plansRoutes(plans: PlansRepo): Router {
   router.put('/:id', async (req, res) => {
     const { id } = parseParams(PlanIdParams, req);
     const { document, baseUpdatedAt } = parseBody(PlanUpdateSchema, req);
-    const outcome = await plans.update(
-      id,
-      currentUser(res).id,
-      checkPlanReferences(document),
-      baseUpdatedAt,
-    );
+    const outcome = await plans.update(id, currentUser(res).id, checkPlanReferences(document), baseUpdatedAt);
     if (outcome.status === 'missing') throw notFound('That plan');
     if (outcome.status === 'stale') {
       throw new HttpError(

@@ -77,7 +77,11 @@ export type AccountExport = z.infer<typeof AccountExportSchema>;
 export const AccountStatusSchema = z.object({ disabled: z.boolean() });
 export type AccountStatus = z.infer<typeof AccountStatusSchema>;
 
-export const InviteSchema = z.object({ email: EmailSchema, displayName: DisplayNameSchema, role: RoleSchema });
+export const InviteSchema = z.object({
+  email: EmailSchema,
+  displayName: DisplayNameSchema,
+  role: RoleSchema,
+});
 export type Invite = z.infer<typeof InviteSchema>;
 
 export const AUDIT_ACTIONS = [

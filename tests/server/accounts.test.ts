@@ -57,8 +57,12 @@ describe('sign-up with e-mail verification (ASVS 4.0.3 V2.1.x, V3.x; enumeration
 
   it('signs in only after the link is followed, and the link works once', async () => {
     const email = uniqueEmail('verify');
-    await request(server.app).post('/api/auth/sign-up').send({ email, displayName: 'Vera Fy', password: TEST_PASSWORD });
-    const before = await request(server.app).post('/api/auth/sign-in').send({ email, password: TEST_PASSWORD });
+    await request(server.app)
+      .post('/api/auth/sign-up')
+      .send({ email, displayName: 'Vera Fy', password: TEST_PASSWORD });
+    const before = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email, password: TEST_PASSWORD });
     expect(before.status).toBe(403);
     expect(errorOf(before.body).code).toBe('EMAIL_NOT_VERIFIED');
 
@@ -69,13 +73,17 @@ describe('sign-up with e-mail verification (ASVS 4.0.3 V2.1.x, V3.x; enumeration
       return found;
     });
     const stale = tokenIn(links[0].raw);
-    expect(errorOf((await request(server.app).post('/api/auth/verify-email').send({ token: stale })).body).code).toBe('BAD_TOKEN');
+    expect(
+      errorOf((await request(server.app).post('/api/auth/verify-email').send({ token: stale })).body).code,
+    ).toBe('BAD_TOKEN');
     const token = tokenIn(links[1].raw);
     expect((await request(server.app).post('/api/auth/verify-email').send({ token })).status).toBe(204);
     const reuse = await request(server.app).post('/api/auth/verify-email').send({ token });
     expect(errorOf(reuse.body).code).toBe('BAD_TOKEN');
 
-    const after = await request(server.app).post('/api/auth/sign-in').send({ email, password: TEST_PASSWORD });
+    const after = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email, password: TEST_PASSWORD });
     expect(after.status).toBe(200);
   });
 });
@@ -83,29 +91,44 @@ describe('sign-up with e-mail verification (ASVS 4.0.3 V2.1.x, V3.x; enumeration
 describe('forgot password (ASVS 4.0.3 V2.5.2, V2.5.6)', () => {
   it('answers the same for unknown addresses and resets once with a single-use token', async () => {
     const { user } = await signedInAgent(server);
-    const unknown = await request(server.app).post('/api/auth/forgot-password').send({ email: uniqueEmail('ghost') });
+    const unknown = await request(server.app)
+      .post('/api/auth/forgot-password')
+      .send({ email: uniqueEmail('ghost') });
     const known = await request(server.app).post('/api/auth/forgot-password').send({ email: user.email });
     expect(unknown.status).toBe(202);
     expect(known.status).toBe(202);
     expect(known.text).toBe(unknown.text);
 
     const token = tokenIn((await mailTo(server, user.email, /new Leadbench password/)).raw);
-    const reset = await request(server.app).post('/api/auth/reset-password').send({ token, password: NEW_PASSWORD });
+    const reset = await request(server.app)
+      .post('/api/auth/reset-password')
+      .send({ token, password: NEW_PASSWORD });
     expect(reset.status).toBe(204);
-    const again = await request(server.app).post('/api/auth/reset-password').send({ token, password: NEW_PASSWORD });
+    const again = await request(server.app)
+      .post('/api/auth/reset-password')
+      .send({ token, password: NEW_PASSWORD });
     expect(errorOf(again.body).code).toBe('BAD_TOKEN');
     expect(await server.db('sessions').where({ user_id: user.id })).toHaveLength(0); // signed out everywhere
-    const signIn = await request(server.app).post('/api/auth/sign-in').send({ email: user.email, password: NEW_PASSWORD });
+    const signIn = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: NEW_PASSWORD });
     expect(signIn.status).toBe(200);
-    expect((await mailTo(server, user.email, /was changed/)).subject).toBe('Your Leadbench password was changed');
+    expect((await mailTo(server, user.email, /was changed/)).subject).toBe(
+      'Your Leadbench password was changed',
+    );
   });
 
   it('refuses an expired token', async () => {
     const { user } = await signedInAgent(server);
     await request(server.app).post('/api/auth/forgot-password').send({ email: user.email });
     const token = tokenIn((await mailTo(server, user.email, /new Leadbench password/)).raw);
-    await server.db('account_tokens').where({ user_id: user.id }).update({ expires_at: Date.now() - 1 });
-    const res = await request(server.app).post('/api/auth/reset-password').send({ token, password: NEW_PASSWORD });
+    await server
+      .db('account_tokens')
+      .where({ user_id: user.id })
+      .update({ expires_at: Date.now() - 1 });
+    const res = await request(server.app)
+      .post('/api/auth/reset-password')
+      .send({ token, password: NEW_PASSWORD });
     expect(errorOf(res.body).code).toBe('BAD_TOKEN');
   });
 });
@@ -124,7 +147,9 @@ describe('password strength and change (ASVS 4.0.3 V2.1.7, V2.1.8, V2.2.3)', () 
     const change = (current: string, next: string) =>
       agent.post('/api/auth/password').send({ currentPassword: current, newPassword: next });
     expect((await change(TEST_PASSWORD, NEW_PASSWORD)).status).toBe(204);
-    expect(decodeMail((await mailTo(server, user.email, /was changed/)).raw)).toContain('other devices were signed out');
+    expect(decodeMail((await mailTo(server, user.email, /was changed/)).raw)).toContain(
+      'other devices were signed out',
+    );
     const statuses = [];
     for (let i = 0; i < 5; i++) statuses.push((await change('not the password', NEW_PASSWORD + i)).status);
     expect(statuses.slice(0, 4)).toEqual([400, 400, 400, 400]);
@@ -136,7 +161,10 @@ describe('sessions list (ASVS 4.0.3 V3.3.4, V3.4.5)', () => {
   it('lists the sessions and signs out everywhere else', async () => {
     const { agent, user } = await signedInAgent(server);
     const laptop = request.agent(server.app);
-    await laptop.post('/api/auth/sign-in').set('User-Agent', 'Bench laptop').send({ email: user.email, password: TEST_PASSWORD });
+    await laptop
+      .post('/api/auth/sign-in')
+      .set('User-Agent', 'Bench laptop')
+      .send({ email: user.email, password: TEST_PASSWORD });
     const list = SessionListSchema.parse((await agent.get('/api/account/sessions')).body);
     expect(list.items).toHaveLength(2);
     expect(list.items.filter((s) => s.current)).toHaveLength(1);
@@ -155,7 +183,9 @@ describe('sessions list (ASVS 4.0.3 V3.3.4, V3.4.5)', () => {
         .post('/api/auth/sign-up')
         .send({ email: uniqueEmail(), displayName: 'Host Only', password: TEST_PASSWORD });
       const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).join('\n');
-      expect(cookie).toMatch(/^__Host-leadbench_session=[^;]+; Max-Age=\d+; Path=\/; Expires=[^;]+; HttpOnly; Secure; SameSite=Lax/);
+      expect(cookie).toMatch(
+        /^__Host-leadbench_session=[^;]+; Max-Age=\d+; Path=\/; Expires=[^;]+; HttpOnly; Secure; SameSite=Lax/,
+      );
       expect(cookie).not.toMatch(/Domain=/i);
     } finally {
       await secure.close();
@@ -171,7 +201,9 @@ describe('TOTP second factor (ASVS 4.0.3 V2.8.1, RFC 6238)', () => {
     expect(enrol.uri).toMatch(/^otpauth:\/\/totp\/Leadbench:/);
     const wrong = await agent.post('/api/account/totp/confirm').send({ code: '000000' });
     expect(wrong.status).toBe(400);
-    const ok = await agent.post('/api/account/totp/confirm').send({ code: await generate({ secret: enrol.secret }) });
+    const ok = await agent
+      .post('/api/account/totp/confirm')
+      .send({ code: await generate({ secret: enrol.secret }) });
     expect(ok.status).toBe(204);
 
     const phone = request.agent(server.app);
@@ -191,7 +223,10 @@ describe('profile, export and deletion (ASVS 4.0.3 V8.3.1, V8.3.2, V8.3.8)', () 
     const next = uniqueEmail('moved');
     const res = await agent.patch('/api/account').send({ displayName: 'New Name', email: next });
     expect(res.body.emailPending).toBe(true);
-    expect(AccountSchema.parse(res.body.account)).toMatchObject({ displayName: 'New Name', email: user.email });
+    expect(AccountSchema.parse(res.body.account)).toMatchObject({
+      displayName: 'New Name',
+      email: user.email,
+    });
     const token = tokenIn((await mailTo(server, next, /new Leadbench e-mail/)).raw);
     await request(server.app).post('/api/auth/verify-email').send({ token });
     expect(AccountSchema.parse((await agent.get('/api/account')).body).email).toBe(next);
@@ -244,14 +279,27 @@ describe('demo accounts and the first admin (ASVS 4.0.3 V2.3.1, V2.4.x)', () => 
     const { createApp } = await import('../../server/app');
     const { loadConfig } = await import('../../server/config');
     const { createMailer } = await import('../../server/mail/mailer');
-    const mailer = createMailer({ host: server.smtp.host, port: server.smtp.port, from: 'b@leadbench.test', plain: true });
+    const mailer = createMailer({
+      host: server.smtp.host,
+      port: server.smtp.port,
+      from: 'b@leadbench.test',
+      plain: true,
+    });
     try {
       const app = createApp({ db, config: loadConfig({ LOG_LEVEL: 'silent' }), mailer });
       const agent = request.agent(app);
-      const signIn = await agent.post('/api/auth/sign-in').send({ email: 'first.admin@bench.test', password });
+      const signIn = await agent
+        .post('/api/auth/sign-in')
+        .send({ email: 'first.admin@bench.test', password });
       expect(SessionInfoSchema.parse(signIn.body).mustChangePassword).toBe(true);
       expect(errorOf((await agent.get('/api/plans')).body).code).toBe('PASSWORD_CHANGE_REQUIRED');
-      expect((await agent.post('/api/auth/password').send({ currentPassword: password, newPassword: NEW_PASSWORD })).status).toBe(204);
+      expect(
+        (
+          await agent
+            .post('/api/auth/password')
+            .send({ currentPassword: password, newPassword: NEW_PASSWORD })
+        ).status,
+      ).toBe(204);
       const admin = await agent.get('/api/admin/users');
       expect(admin.status).toBe(403);
       expect(errorOf(admin.body).code).toBe('SECOND_FACTOR_REQUIRED');

@@ -4,7 +4,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditListSchema } from '../../shared/schemas/account.schema';
 import { AdminUserSchema, UserListSchema } from '../../shared/schemas/auth.schema';
 import { ErrorBodySchema } from '../../shared/schemas/error.schema';
-import { mailTo, signedInAgent, startTestServer, TEST_PASSWORD, uniqueEmail, type TestServer } from './server.harness';
+import {
+  mailTo,
+  signedInAgent,
+  startTestServer,
+  TEST_PASSWORD,
+  uniqueEmail,
+  type TestServer,
+} from './server.harness';
 
 let server: TestServer;
 let admin: Awaited<ReturnType<typeof signedInAgent>>;
@@ -26,19 +33,27 @@ describe('admin actions', () => {
     const off = await admin.agent.patch(`/api/admin/users/${person.user.id}/status`).send({ disabled: true });
     expect(AdminUserSchema.parse(off.body.user).disabled).toBe(true);
     expect((await person.agent.get('/api/plans')).status).toBe(401);
-    const signIn = await request(server.app).post('/api/auth/sign-in').send({ email: person.user.email, password: TEST_PASSWORD });
+    const signIn = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email: person.user.email, password: TEST_PASSWORD });
     expect(errorOf(signIn.body).code).toBe('ACCOUNT_DISABLED');
 
     await admin.agent.patch(`/api/admin/users/${person.user.id}/status`).send({ disabled: false });
-    const back = await request(server.app).post('/api/auth/sign-in').send({ email: person.user.email, password: TEST_PASSWORD });
+    const back = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email: person.user.email, password: TEST_PASSWORD });
     expect(back.status).toBe(200);
     expect((await auditActions()).slice(0, 2)).toEqual(['account-enabled', 'account-disabled']);
   });
 
   it('shows each user’s last sign-in', async () => {
     const person = await signedInAgent(server, 'restorer');
-    await request(server.app).post('/api/auth/sign-in').send({ email: person.user.email, password: TEST_PASSWORD });
-    const list = UserListSchema.parse((await admin.agent.get('/api/admin/users').query({ search: person.user.email })).body);
+    await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email: person.user.email, password: TEST_PASSWORD });
+    const list = UserListSchema.parse(
+      (await admin.agent.get('/api/admin/users').query({ search: person.user.email })).body,
+    );
     expect(list.items[0].lastSignInAt).not.toBeNull();
   });
 
@@ -48,14 +63,20 @@ describe('admin actions', () => {
     await mailTo(server, person.user.email, /new Leadbench password/);
 
     const email = uniqueEmail('invited');
-    const invite = await admin.agent.post('/api/admin/invitations').send({ email, displayName: 'In Vited', role: 'instructor' });
+    const invite = await admin.agent
+      .post('/api/admin/invitations')
+      .send({ email, displayName: 'In Vited', role: 'instructor' });
     expect(invite.status).toBe(201);
     expect(AdminUserSchema.parse(invite.body.user).role).toBe('instructor');
     expect((await mailTo(server, email, /invited/)).subject).toBe('You are invited to Leadbench');
 
     expect((await admin.agent.delete(`/api/admin/users/${person.user.id}`)).status).toBe(204);
     expect((await admin.agent.delete(`/api/admin/users/${person.user.id}`)).status).toBe(404);
-    expect((await auditActions()).slice(0, 3)).toEqual(['account-deleted', 'user-invited', 'password-reset-sent']);
+    expect((await auditActions()).slice(0, 3)).toEqual([
+      'account-deleted',
+      'user-invited',
+      'password-reset-sent',
+    ]);
   });
 
   it('refuses to disable or delete the admin’s own account', async () => {

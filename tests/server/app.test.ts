@@ -174,7 +174,10 @@ describe('configuration', () => {
   });
 
   it('seeds nothing and verifies e-mail by default in production (ASVS 4.0.3 V2.5.4, V14.1.1)', () => {
-    expect(loadConfig({ NODE_ENV: 'production' })).toMatchObject({ seedDemo: false, emailVerification: true });
+    expect(loadConfig({ NODE_ENV: 'production' })).toMatchObject({
+      seedDemo: false,
+      emailVerification: true,
+    });
     expect(loadConfig({ NODE_ENV: 'production', SEED_DEMO: 'true' }).seedDemo).toBe(true);
   });
 

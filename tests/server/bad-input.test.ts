@@ -54,7 +54,8 @@ describe('unbounded arrays (ASVS 4.0.3 V5.1.4, V11.1.4)', () => {
 
   it('states the total count when more problems exist than are listed', async () => {
     const plan = planWithSets(200) as unknown as { sets: Record<string, unknown>[] };
-    for (const set of plan.sets) Object.assign(set, { name: '', template: '', id: 'Bad Id', ringerLines: [0] });
+    for (const set of plan.sets)
+      Object.assign(set, { name: '', template: '', id: 'Bad Id', ringerLines: [0] });
     const res = await post(JSON.stringify({ document: plan }));
     expect(res.status).toBe(400);
     const error = errorOf(res.body);

@@ -35,12 +35,15 @@ describe('request bodies (ASVS 4.0.3 V5.1.1, V13.1.x)', () => {
 });
 
 describe('routes outside /api', () => {
-  it.each(['post', 'put', 'delete'] as const)('answers %s with the JSON error shape, not a page', async (method) => {
-    const res = await request(server.app)[method]('/plans/abc');
-    expect(res.status).toBe(404);
-    expect(res.headers['content-type']).toMatch(/application\/json/);
-    expect(errorOf(res.body).code).toBe('NOT_FOUND');
-  });
+  it.each(['post', 'put', 'delete'] as const)(
+    'answers %s with the JSON error shape, not a page',
+    async (method) => {
+      const res = await request(server.app)[method]('/plans/abc');
+      expect(res.status).toBe(404);
+      expect(res.headers['content-type']).toMatch(/application\/json/);
+      expect(errorOf(res.body).code).toBe('NOT_FOUND');
+    },
+  );
 });
 
 describe('headers (ASVS 4.0.3 V14.4.x)', () => {

@@ -144,7 +144,9 @@ export function planWithSets(n: number, name = 'Front office'): Plan {
 export async function mailTo(server: TestServer, to: string, subject?: RegExp) {
   return vi.waitFor(
     () => {
-      const found = server.smtp.messages.findLast((m) => m.to.includes(to) && (!subject || subject.test(m.subject)));
+      const found = server.smtp.messages.findLast(
+        (m) => m.to.includes(to) && (!subject || subject.test(m.subject)),
+      );
       if (!found) throw new Error(`no mail to ${to} yet`);
       return found;
     },

@@ -9,7 +9,13 @@ import { ErrorBodySchema } from '../../shared/schemas/error.schema';
 import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import { createMailer } from '../../server/mail/mailer';
-import { signedInAgent, startTestServer, TEST_PASSWORD, uniqueEmail, type TestServer } from './server.harness';
+import {
+  signedInAgent,
+  startTestServer,
+  TEST_PASSWORD,
+  uniqueEmail,
+  type TestServer,
+} from './server.harness';
 
 let server: TestServer;
 const env = {
@@ -55,9 +61,15 @@ describe('failed sign-ins per account (ASVS 4.0.3 V2.2.1)', () => {
 
   it('keeps counting across a restart (counters live in SQLite)', async () => {
     const { user } = await signedInAgent(server);
-    for (let i = 0; i < 3; i++) await signIn(server.app, user.email, 'wrong password!', `198.51.100.${60 + i}`);
+    for (let i = 0; i < 3; i++)
+      await signIn(server.app, user.email, 'wrong password!', `198.51.100.${60 + i}`);
     const smtp = server.smtp;
-    const mailer = createMailer({ host: smtp.host, port: smtp.port, from: 'bench@leadbench.test', plain: true });
+    const mailer = createMailer({
+      host: smtp.host,
+      port: smtp.port,
+      from: 'bench@leadbench.test',
+      plain: true,
+    });
     const restarted = createApp({
       db: server.db,
       config: loadConfig({ LOG_LEVEL: 'silent', PORT: '3000', ...env }),
@@ -74,7 +86,11 @@ describe('failed sign-ins per account (ASVS 4.0.3 V2.2.1)', () => {
 
 describe('failed sign-ins per address (ASVS 4.0.3 V2.2.1)', () => {
   it('lets thirty trainees sign in from one classroom address: successes do not count', async () => {
-    const classroom = await startTestServer({ ...env, RATE_LIMIT_MAX: '1000', SIGN_IN_FAILURES_PER_ADDRESS: '2' });
+    const classroom = await startTestServer({
+      ...env,
+      RATE_LIMIT_MAX: '1000',
+      SIGN_IN_FAILURES_PER_ADDRESS: '2',
+    });
     try {
       const trainees = [];
       for (let i = 0; i < 30; i++) trainees.push((await signedInAgent(classroom, 'trainee')).user);
@@ -103,7 +119,8 @@ describe('sign-up budget per address', () => {
   it('answers 429 once RATE_LIMIT_MAX sign-ups are spent; other routes are not limited', async () => {
     const limited = await startTestServer({ RATE_LIMIT_MAX: '2' });
     try {
-      for (let i = 0; i < 2; i++) expect((await request(limited.app).post('/api/auth/sign-up').send({})).status).toBe(400);
+      for (let i = 0; i < 2; i++)
+        expect((await request(limited.app).post('/api/auth/sign-up').send({})).status).toBe(400);
       const res = await request(limited.app).post('/api/auth/sign-up').send({});
       expect(res.status).toBe(429);
       expect(errorOf(res.body).code).toBe('RATE_LIMITED');
