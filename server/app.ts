@@ -20,7 +20,7 @@ import { healthRoutes } from './health.routes';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { originCheck } from './http/origin-check';
 import type { Mailer } from './mail/mailer';
-import { plansRoutes } from './plans/plans.routes';
+import { plansLibraryRoutes } from './plans/plans-library';
 import { plansRepo } from './plans/plans.repo';
 import { usersRepo } from './users/users.repo';
 
@@ -100,7 +100,7 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
   api.use('/health', healthRoutes(db));
   api.use('/auth', authRoutes(auth, lucia, config.authRateLimit));
   api.use('/admin', adminRoutes(users));
-  api.use('/plans', plansRoutes(plans));
+  api.use(plansLibraryRoutes({ db, config, mailer, logger: log }));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -2,6 +2,7 @@
  * Server configuration: read from the environment once at boot, checked with zod.
  * A bad value stops the server with a message naming the variable, never a half-working start.
  */
+import { dirname, join } from 'node:path';
 import { z } from 'zod';
 
 const Bool = z
@@ -13,6 +14,11 @@ const Port = z.coerce
   .int('Use a whole port number')
   .min(0, 'Use a port from 0 to 65535')
   .max(65535, 'Use a port from 0 to 65535');
+
+const Count = z.coerce
+  .number({ error: 'Use a whole number' })
+  .int('Use a whole number')
+  .min(1, 'Use at least 1');
 
 const EnvSchema = z.object({
   PORT: Port.default(3000),
@@ -48,6 +54,18 @@ const EnvSchema = z.object({
     .default(20),
   /** Folder of the built client; the repository's dist/ when unset. */
   CLIENT_DIR: z.string().trim().min(1).optional(),
+  /** Plans one account may keep (recently deleted ones not counted). */
+  PLAN_QUOTA_COUNT: Count.default(200),
+  /** Bytes of plan documents and photos one account may keep. */
+  PLAN_QUOTA_BYTES: Count.default(200 * 1024 * 1024),
+  /** Sets in one plan: the engine's speed targets are met up to here (tests/bench/engine.bench.ts). */
+  PLAN_MAX_SETS: Count.max(200, 'The plan format holds at most 200 sets').default(60),
+  /** Largest plan file accepted for import, in bytes. */
+  PLAN_IMPORT_MAX_BYTES: Count.default(1024 * 1024),
+  /** Largest photo accepted, in bytes. */
+  PHOTO_MAX_BYTES: Count.default(10 * 1024 * 1024),
+  /** Folder for photos; next to the database file when unset. */
+  PHOTO_DIR: z.string().trim().min(1).optional(),
 });
 
 export interface Config {
@@ -68,6 +86,8 @@ export interface Config {
   trustProxy: boolean | number;
   /** Folder of the built client, when not the default dist/. */
   clientDir?: string;
+  plans: { maxPlans: number; maxBytes: number; maxSets: number; importMaxBytes: number };
+  photos: { maxBytes: number; dir: string };
 }
 
 export class ConfigError extends Error {}
@@ -96,5 +116,12 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     authRateLimit: { windowMs: 15 * 60_000, limit: e.RATE_LIMIT_MAX },
     trustProxy: e.TRUST_PROXY,
     clientDir: e.CLIENT_DIR,
+    plans: {
+      maxPlans: e.PLAN_QUOTA_COUNT,
+      maxBytes: e.PLAN_QUOTA_BYTES,
+      maxSets: e.PLAN_MAX_SETS,
+      importMaxBytes: e.PLAN_IMPORT_MAX_BYTES,
+    },
+    photos: { maxBytes: e.PHOTO_MAX_BYTES, dir: e.PHOTO_DIR ?? join(dirname(e.DATABASE_FILE), 'photos') },
   };
 }

@@ -4,9 +4,11 @@
  */
 import type { Knex } from 'knex';
 import * as initial from './20261202_0001_initial';
+import * as plansLibrary from './20261202_0003_plans_library';
 
 const MIGRATIONS: Record<string, Knex.Migration> = {
   '20261202_0001_initial': initial,
+  '20261202_0003_plans_library': plansLibrary,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
