@@ -172,7 +172,7 @@ function diffCrossConnect(before: Plan, after: Plan): PlanChange[] {
   return out;
 }
 
-/** Every change from `before` to `after`, in a stable order: plan, KSU, parts, leads, cables. */
+/** Every change from `before` to `after`, in a stable order: plan, KSU, each part with its leads, cables. */
 export function diffPlans(before: Plan, after: Plan): PlanChange[] {
   const out: PlanChange[] = [];
   if (before.name !== after.name)

@@ -28,7 +28,10 @@ describe('the list', () => {
   it('searches, sorts and pages on the server', async () => {
     await createPlan(owner, planWithSets(3, 'Bakery front'));
     await createPlan(owner, planWithSets(1, 'Print shop'));
-    await createPlan(owner, { ...planWithSets(5, 'Bakery back'), description: 'ovens and the 100% humid room' });
+    await createPlan(owner, {
+      ...planWithSets(5, 'Bakery back'),
+      description: 'ovens and the 100% humid room',
+    });
 
     const found = await list('?q=bakery&sort=setCount&order=asc');
     expect(found.items.map((p) => [p.name, p.setCount])).toEqual([
@@ -92,7 +95,9 @@ describe('quotas', () => {
       const big = { ...minimalPlan('Too long'), description: 'x'.repeat(1900) };
       const res = await agent.post('/api/plans').send({ document: big });
       expect(res.status).toBe(409);
-      expect(ErrorBodySchema.parse(res.body).error.message).toMatch(/more than the 0 MB your account may keep/);
+      expect(ErrorBodySchema.parse(res.body).error.message).toMatch(
+        /more than the 0 MB your account may keep/,
+      );
     } finally {
       await small.close();
     }
@@ -103,14 +108,20 @@ describe('rename, copy, delete and undo', () => {
   it('renames by name alone, guarded by the time last seen', async () => {
     await server.db('plans').delete();
     const plan = await createPlan(owner, planWithSets(2, 'Dairy'));
-    const res = await owner.patch(`/api/plans/${plan.id}`).send({ name: 'Dairy, cold room', baseUpdatedAt: plan.updatedAt });
+    const res = await owner
+      .patch(`/api/plans/${plan.id}`)
+      .send({ name: 'Dairy, cold room', baseUpdatedAt: plan.updatedAt });
     expect(res.status).toBe(200);
     const renamed = PlanRecordSchema.parse(res.body);
     expect(renamed.document.name).toBe('Dairy, cold room');
     expect(renamed.document.sets).toEqual(plan.document.sets);
-    const stale = await owner.patch(`/api/plans/${plan.id}`).send({ name: 'Again', baseUpdatedAt: plan.updatedAt });
+    const stale = await owner
+      .patch(`/api/plans/${plan.id}`)
+      .send({ name: 'Again', baseUpdatedAt: plan.updatedAt });
     expect(stale.status).toBe(409);
-    const blank = await owner.patch(`/api/plans/${plan.id}`).send({ name: ' ', baseUpdatedAt: renamed.updatedAt });
+    const blank = await owner
+      .patch(`/api/plans/${plan.id}`)
+      .send({ name: ' ', baseUpdatedAt: renamed.updatedAt });
     expect(ErrorBodySchema.parse(blank.body).error.details?.name).toEqual(['A name is required']);
   });
 
@@ -143,7 +154,10 @@ describe('rename, copy, delete and undo', () => {
 
     await owner.delete(`/api/plans/${plan.id}`);
     // 31 days ago: past the 30 days a deleted plan is kept (server/plans/plans.service.ts).
-    await server.db('plans').where({ id: plan.id }).update({ deleted_at: new Date(Date.now() - 31 * 864e5).toISOString() });
+    await server
+      .db('plans')
+      .where({ id: plan.id })
+      .update({ deleted_at: new Date(Date.now() - 31 * 864e5).toISOString() });
     await list('?scope=deleted'); // listing purges what is due
     expect(await server.db('plans').where({ id: plan.id }).first()).toBeUndefined();
     expect(await server.db('plan_revisions').where({ plan_id: plan.id }).first()).toBeUndefined();
