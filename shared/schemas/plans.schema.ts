@@ -64,7 +64,10 @@ export const PlanListQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(100, 'At most 100 plans a page').default(20),
 });
 export type PlanListQuery = z.infer<typeof PlanListQuerySchema>;
-export type PlanListParams = Partial<z.input<typeof PlanListQuerySchema>>;
+/** What a client sends: every field optional, numbers as numbers. */
+export type PlanListParams = Partial<
+  Omit<PlanListQuery, 'page' | 'pageSize'> & { page: number; pageSize: number }
+>;
 
 /** How much of the account's room the plans take, against the limits the server is set to. */
 export const PlanUsageSchema = z.object({
