@@ -54,33 +54,24 @@ interface Part {
 
 function partsOf(plan: Plan): Map<string, Part> {
   const parts = new Map<string, Part>();
+  const put = (
+    p: { id: string; name: string; template: string },
+    kindLabel: string,
+    leadChanges: LeadChange[],
+    settings: unknown,
+  ) =>
+    parts.set(p.id, {
+      id: p.id,
+      name: p.name,
+      template: p.template,
+      kindLabel,
+      leadChanges,
+      extra: JSON.stringify(settings),
+    });
   for (const s of plan.sets)
-    parts.set(s.id, {
-      id: s.id,
-      name: s.name,
-      template: s.template,
-      kindLabel: 'set',
-      leadChanges: s.leadChanges,
-      extra: JSON.stringify([s.station ?? null, [...s.ringerLines].sort((a, b) => a - b)]),
-    });
-  for (const a of plan.addOns)
-    parts.set(a.id, {
-      id: a.id,
-      name: a.name,
-      template: a.template,
-      kindLabel: 'add-on',
-      leadChanges: a.leadChanges,
-      extra: JSON.stringify([a.serves]),
-    });
-  for (const a of plan.adapters)
-    parts.set(a.id, {
-      id: a.id,
-      name: a.name,
-      template: a.template,
-      kindLabel: 'adapter',
-      leadChanges: [],
-      extra: JSON.stringify(a.bridgedPairs ?? null),
-    });
+    put(s, 'set', s.leadChanges, [s.station ?? null, [...s.ringerLines].sort((x, y) => x - y)]);
+  for (const a of plan.addOns) put(a, 'add-on', a.leadChanges, [a.serves]);
+  for (const a of plan.adapters) put(a, 'adapter', [], a.bridgedPairs ?? null);
   return parts;
 }
 
