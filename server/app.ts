@@ -26,7 +26,7 @@ import { apiNotFound, errorHandler, sendError } from './http/error-handler';
 import { originCheck } from './http/origin-check';
 import { accountWriteLimit } from './http/rate-limit';
 import type { Mailer } from './mail/mailer';
-import { plansRoutes } from './plans/plans.routes';
+import { plansLibraryRoutes } from './plans/plans-library';
 import { plansRepo } from './plans/plans.repo';
 import { usersRepo } from './users/users.repo';
 
@@ -137,7 +137,8 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
   api.use('/auth', authRoutes(auth, sessions, config.authRateLimit));
   api.use('/account', accountRoutes({ auth, sessions, users, plans }));
   api.use('/admin', adminRoutes({ users, audit, auth, sessions }));
-  api.use('/plans', accountWriteLimit(config.planWritesPerMinute), plansRoutes(plans));
+  api.use('/plans', accountWriteLimit(config.planWritesPerMinute));
+  api.use(plansLibraryRoutes({ db, config, mailer, logger: log }));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -2,6 +2,7 @@
  * Server configuration: read from the environment once at boot, checked with zod.
  * A bad value stops the server with a message naming the variable, never a half-working start.
  */
+import { dirname, join } from 'node:path';
 import { z } from 'zod';
 
 const Bool = z
@@ -77,6 +78,18 @@ const EnvSchema = z.object({
     .default(60),
   /** Folder of the built client; the repository's dist/ when unset. */
   CLIENT_DIR: z.string().trim().min(1).optional(),
+  /** Plans one account may keep (recently deleted ones not counted). */
+  PLAN_QUOTA_COUNT: Count('plans').default(200),
+  /** Bytes of plan documents and photos one account may keep. */
+  PLAN_QUOTA_BYTES: Count('bytes').default(200 * 1024 * 1024),
+  /** Sets in one plan: the engine's speed targets are met up to here (tests/bench/engine.bench.ts). */
+  PLAN_MAX_SETS: Count('sets').max(200, 'The plan format holds at most 200 sets').default(60),
+  /** Largest plan file accepted for import, in bytes. */
+  PLAN_IMPORT_MAX_BYTES: Count('bytes').default(1024 * 1024),
+  /** Largest photo accepted, in bytes. */
+  PHOTO_MAX_BYTES: Count('bytes').default(10 * 1024 * 1024),
+  /** Folder for photos; next to the database file when unset. */
+  PHOTO_DIR: z.string().trim().min(1).optional(),
 });
 
 export interface Config {
@@ -102,6 +115,8 @@ export interface Config {
   trustProxy: number;
   /** Folder of the built client, when not the default dist/. */
   clientDir?: string;
+  plans: { maxPlans: number; maxBytes: number; maxSets: number; importMaxBytes: number };
+  photos: { maxBytes: number; dir: string };
 }
 
 export class ConfigError extends Error {}
@@ -140,5 +155,12 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     planWritesPerMinute: e.PLAN_WRITES_PER_MINUTE,
     trustProxy: e.TRUST_PROXY,
     clientDir: e.CLIENT_DIR,
+    plans: {
+      maxPlans: e.PLAN_QUOTA_COUNT,
+      maxBytes: e.PLAN_QUOTA_BYTES,
+      maxSets: e.PLAN_MAX_SETS,
+      importMaxBytes: e.PLAN_IMPORT_MAX_BYTES,
+    },
+    photos: { maxBytes: e.PHOTO_MAX_BYTES, dir: e.PHOTO_DIR ?? join(dirname(e.DATABASE_FILE), 'photos') },
   };
 }

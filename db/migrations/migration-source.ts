@@ -5,10 +5,12 @@
 import type { Knex } from 'knex';
 import * as initial from './20261202_0001_initial';
 import * as accounts from './20261202_0002_accounts';
+import * as plansLibrary from './20261202_0003_plans_library';
 
 const MIGRATIONS: Record<string, Knex.Migration> = {
   '20261202_0001_initial': initial,
   '20261202_0002_accounts': accounts,
+  '20261202_0003_plans_library': plansLibrary,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -15,6 +15,7 @@ import { currentUser, requireSignedIn } from '../http/auth.middleware';
 import { notFound } from '../http/http-error';
 import { parseBody, parseParams } from '../http/validate';
 import type { PlansRepo } from '../plans/plans.repo';
+import { viewerOf } from '../plans/plans.service';
 import { toAccount, type UsersRepo } from '../users/users.repo';
 
 const SessionParams = z.object({ id: z.string().regex(/^[0-9a-f]{64}$/, 'Not a session') });
@@ -55,12 +56,9 @@ export function accountRoutes(deps: {
   });
 
   router.get('/export', async (_req, res) => {
-    const { id } = currentUser(res);
-    const records: PlanRecord[] = [];
-    for (const summary of await plans.listForOwner(id)) {
-      const plan = await plans.findForOwner(summary.id, id);
-      if (plan) records.push(plan);
-    }
+    const user = currentUser(res);
+    const { id } = user;
+    const records: PlanRecord[] = await plans.ownRecords(viewerOf(user));
     const body: AccountExport = {
       exportedAt: new Date().toISOString(),
       account: await account(id),

@@ -5,7 +5,7 @@ import type { PlanRecord, PlanSummary } from '@shared/schemas';
 import { plansApi } from '@/api/plans';
 
 function toSummary(record: PlanRecord): PlanSummary {
-  const { document: _document, ...summary } = record;
+  const { document: _document, revision: _revision, ...summary } = record;
   return summary;
 }
 
@@ -19,7 +19,9 @@ export function usePlans() {
     loading.value = true;
     error.value = null;
     try {
-      plans.value = [...(await plansApi.list())].sort((a, b) => b.updatedAt.localeCompare(a.updatedAt));
+      plans.value = [...(await plansApi.list({ pageSize: 100 })).items].sort((a, b) =>
+        b.updatedAt.localeCompare(a.updatedAt),
+      );
       loaded.value = true;
     } catch (caught) {
       error.value = caught;
@@ -37,7 +39,7 @@ export function usePlans() {
   /** The name lives in the document, so renaming saves the document with the new name. */
   async function rename(id: string, name: string): Promise<PlanSummary> {
     const current = await plansApi.get(id);
-    const saved = await plansApi.update(id, { ...current.document, name }, current.updatedAt);
+    const saved = await plansApi.rename(id, name, current.updatedAt);
     const summary = toSummary(saved);
     plans.value = plans.value.map((p) => (p.id === id ? summary : p));
     return summary;

@@ -9,13 +9,20 @@ function record(id: string, name: string, updatedAt: string): PlanRecord {
     name,
     description: '',
     setCount: 0,
+    faultCount: 0,
+    shared: false,
+    access: 'owner',
+    ownerName: 'Test restorer',
+    deletedAt: null,
     createdAt: '2026-03-01T09:00:00.000Z',
     updatedAt,
+    revision: 1,
     document: blankPlan(name),
   };
 }
 
-const summary = ({ document: _d, ...rest }: PlanRecord) => rest;
+const summary = ({ document: _d, revision: _r, ...rest }: PlanRecord) => rest;
+const USAGE = { plans: 2, maxPlans: 200, bytes: 100, maxBytes: 1000, maxSets: 60 };
 
 afterEach(() => vi.unstubAllGlobals());
 
@@ -25,7 +32,15 @@ describe('usePlans', () => {
     const newer = record('p-2', 'Bakery', '2026-03-05T09:00:00.000Z');
     vi.stubGlobal(
       'fetch',
-      vi.fn(async () => Response.json({ items: [summary(older), summary(newer)] })),
+      vi.fn(async () =>
+        Response.json({
+          items: [summary(older), summary(newer)],
+          page: 1,
+          pageSize: 100,
+          total: 2,
+          usage: USAGE,
+        }),
+      ),
     );
     const plans = usePlans();
 
@@ -49,7 +64,7 @@ describe('usePlans', () => {
     const current = record('p-1', 'Print shop', '2026-03-02T09:00:00.000Z');
     const saved = { ...record('p-1', 'Print shop, back room', '2026-03-02T10:00:00.000Z') };
     const fetchMock = vi.fn(async (_url: string, init?: RequestInit) =>
-      init?.method === 'PUT' ? Response.json(saved) : Response.json(current),
+      init?.method === 'PATCH' ? Response.json(saved) : Response.json(current),
     );
     vi.stubGlobal('fetch', fetchMock);
     const plans = usePlans();
@@ -60,8 +75,8 @@ describe('usePlans', () => {
     const [url, init] = fetchMock.mock.calls[1] as [string, RequestInit];
     expect(url).toBe('/api/plans/p-1');
     const body = JSON.parse(String(init.body));
-    expect(body.document.name).toBe('Print shop, back room');
-    // The stale-write guard: PlanUpdateSchema.baseUpdatedAt in shared/schemas/plans.schema.ts.
+    expect(body.name).toBe('Print shop, back room');
+    // The stale-write guard: PlanRenameSchema.baseUpdatedAt in shared/schemas/plans.schema.ts.
     expect(body.baseUpdatedAt).toBe('2026-03-02T09:00:00.000Z');
     expect(plans.plans.value[0]?.name).toBe('Print shop, back room');
   });

@@ -51,6 +51,7 @@ describe('plans CRUD', () => {
     // List
     const list = PlanListSchema.parse((await owner.agent.get('/api/plans')).body);
     expect(list.items.map((p) => p.id)).toContain(plan.id);
+    expect(list).toMatchObject({ page: 1, pageSize: 20, total: 1 });
     expect(list.items[0]).not.toHaveProperty('document');
 
     // Update
@@ -62,17 +63,17 @@ describe('plans CRUD', () => {
     expect(after).toMatchObject({ name: 'Parts counter, rewired', setCount: 5, createdAt: plan.createdAt });
     expect(after.updatedAt > plan.updatedAt).toBe(true); // ISO 8601 UTC strings sort in time order
 
-    // Delete
+    // Delete: gone from the plan routes, kept in the recently deleted list until undone or purged
     expect((await owner.agent.delete(`/api/plans/${plan.id}`)).status).toBe(204);
     expect((await owner.agent.get(`/api/plans/${plan.id}`)).status).toBe(404);
     expect((await owner.agent.delete(`/api/plans/${plan.id}`)).status).toBe(404);
   });
 
-  it('accepts a large plan well above the 100 kB default body limit', async () => {
-    // 200 sets fed through two levels of four-jack bridging adapters from 13 KSU ports.
-    const big = planWithSets(200, 'Large floor');
+  it('accepts a plan at the set bound, above the 100 kB default body limit, and refuses one set more', async () => {
+    // 60 sets (PLAN_MAX_SETS default, server/config.ts) fed through two levels of four-jack bridging adapters.
+    const big = planWithSets(60, 'Large floor');
     big.description = 'Every desk of the trading floor, cabled through bridging adapters. '.repeat(25);
-    big.ksu.ports = 13;
+    big.ksu.ports = 4;
     let cable = 0;
     const plug = (part: string, to: { part: string; port: string }) =>
       big.cables.push({
@@ -81,7 +82,7 @@ describe('plans CRUD', () => {
         to,
         label: `Run ${cable} along the skirting board`,
       });
-    for (let a = 1; a <= 13; a++) {
+    for (let a = 1; a <= 4; a++) {
       big.adapters.push({
         id: `hub-${a}`,
         name: `Riser hub ${a}`,
@@ -90,7 +91,7 @@ describe('plans CRUD', () => {
       });
       plug(`hub-${a}`, { part: 'ksu', port: `port-${a}` });
     }
-    for (let a = 1; a <= 50; a++) {
+    for (let a = 1; a <= 15; a++) {
       big.adapters.push({
         id: `desk-hub-${a}`,
         name: `Desk hub ${a}`,
@@ -99,18 +100,26 @@ describe('plans CRUD', () => {
       });
       plug(`desk-hub-${a}`, { part: `hub-${Math.ceil(a / 4)}`, port: `jack-${((a - 1) % 4) + 1}` });
     }
-    for (let s = 1; s <= 200; s++)
+    for (let s = 1; s <= 60; s++) {
       plug(`set-${s}`, { part: `desk-hub-${Math.ceil(s / 4)}`, port: `jack-${((s - 1) % 4) + 1}` });
-    // Saved as a person would keep it in a file: pretty-printed.
-    const text = JSON.stringify({ document: big }, null, 2);
+    }
+    // Saved as a person would keep it in a file: pretty-printed, with generous indentation.
+    const text = JSON.stringify({ document: big }, null, 10);
     expect(Buffer.byteLength(text)).toBeGreaterThan(100 * 1024); // express.json() default limit is 100 kB (body-parser docs)
 
     const res = await owner.agent.post('/api/plans').set('Content-Type', 'application/json').send(text);
 
     expect(res.status).toBe(201);
     const saved = PlanRecordSchema.parse(res.body);
-    expect(saved.setCount).toBe(200);
-    expect(saved.document.cables).toHaveLength(263); // 13 + 50 + 200 cables laid above
+    expect(saved.setCount).toBe(60);
+    expect(saved.document.cables).toHaveLength(79); // 4 + 15 + 60 cables laid above
+
+    const tooBig = planWithSets(61, 'One desk too many');
+    const refused = await owner.agent.post('/api/plans').send({ document: tooBig });
+    expect(refused.status).toBe(400);
+    expect(errorOf(refused.body).details?.['document.sets']).toEqual([
+      'A plan may hold at most 60 sets; this one has 61', // our own wording, server/plans/plan-document.ts
+    ]);
   });
 
   it('refuses parts that do not fit together, naming the path', async () => {
@@ -157,7 +166,9 @@ describe('owner isolation', () => {
       (await owner.agent.post('/api/plans').send({ document: minimalPlan('Mine') })).body,
     );
     const get = await stranger.agent.get(`/api/plans/${plan.id}`);
-    const put = await stranger.agent.put(`/api/plans/${plan.id}`).send({ document: minimalPlan('Stolen') });
+    const put = await stranger.agent
+      .put(`/api/plans/${plan.id}`)
+      .send({ document: minimalPlan('Stolen'), baseUpdatedAt: plan.updatedAt });
     const del = await stranger.agent.delete(`/api/plans/${plan.id}`);
     for (const res of [get, put, del]) {
       expect(res.status).toBe(404); // not 403: another user's plan is not revealed to exist
@@ -191,6 +202,17 @@ describe('concurrent edits', () => {
     });
     const stored = PlanRecordSchema.parse((await owner.agent.get(`/api/plans/${plan.id}`)).body);
     expect(stored.name).toBe('Shared, first tab');
+  });
+
+  it('refuses a save that does not say which copy it replaces', async () => {
+    const plan = PlanRecordSchema.parse(
+      (await owner.agent.post('/api/plans').send({ document: minimalPlan('Unguarded') })).body,
+    );
+    const res = await owner.agent.put(`/api/plans/${plan.id}`).send({ document: minimalPlan('Blind write') });
+    expect(res.status).toBe(400);
+    expect(errorOf(res.body).details?.baseUpdatedAt).toEqual(['Send the time you last loaded the plan']);
+    const stored = PlanRecordSchema.parse((await owner.agent.get(`/api/plans/${plan.id}`)).body);
+    expect(stored.name).toBe('Unguarded');
   });
 
   it('gives back-to-back saves distinct timestamps', async () => {

@@ -49,7 +49,13 @@ export async function startTestServer(
     from: 'bench@leadbench.test',
     plain: true,
   });
-  const config = loadConfig({ LOG_LEVEL: 'silent', RATE_LIMIT_MAX: '1000', PORT: '3000', ...env });
+  const config = loadConfig({
+    LOG_LEVEL: 'silent',
+    RATE_LIMIT_MAX: '1000',
+    PORT: '3000',
+    DATABASE_FILE: join(dir, 'test.sqlite'),
+    ...env,
+  });
   const app = createApp({
     db,
     config,

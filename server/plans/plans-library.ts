@@ -1,0 +1,40 @@
+/** The plans library's routes in one place: plans, their revisions, files, shares and photos, and share links. */
+import { Router } from 'express';
+import type { Logger } from 'pino';
+import type { Config } from '../config';
+import type { Database } from '../db/database';
+import type { Mailer } from '../mail/mailer';
+import { photoStore } from '../photos/photo-store';
+import { photosRepo } from '../photos/photos.repo';
+import { photosRoutes } from '../photos/photos.routes';
+import { sharesRepo } from '../shares/shares.repo';
+import { linkRoutes, planSharesRoutes } from '../shares/shares.routes';
+import { plansRepo } from './plans.repo';
+import { plansRoutes } from './plans.routes';
+import { plansService } from './plans.service';
+
+export interface PlansLibraryDeps {
+  db: Database;
+  config: Config;
+  mailer: Mailer;
+  logger: Logger;
+}
+
+/** Mount at the API root: answers under /plans and /links. */
+export function plansLibraryRoutes({ db, config, mailer, logger }: PlansLibraryDeps): Router {
+  const plans = plansRepo(db);
+  const photos = photosRepo(db);
+  const shares = sharesRepo(db);
+  const store = photoStore(config.photos.dir);
+  const service = plansService({ plans, photos, store, limits: config.plans, logger });
+
+  const router = Router();
+  router.use(
+    '/plans/:id/shares',
+    planSharesRoutes({ service, shares, mailer, logger, publicOrigin: config.publicOrigin }),
+  );
+  router.use('/plans/:id/photos', photosRoutes(service, photos, store, config.photos.maxBytes));
+  router.use('/plans', plansRoutes(service, plans, config.plans.importMaxBytes, config.plans.maxSets));
+  router.use('/links', linkRoutes({ service, shares }));
+  return router;
+}
