@@ -22,6 +22,7 @@ import { originCheck } from './http/origin-check';
 import type { Mailer } from './mail/mailer';
 import { plansRoutes } from './plans/plans.routes';
 import { plansRepo } from './plans/plans.repo';
+import { trainingRoutes } from './training/training.routes';
 import { usersRepo } from './users/users.repo';
 
 /** Big enough for a plan with hundreds of parts and their positions. */
@@ -101,6 +102,7 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
   api.use('/auth', authRoutes(auth, lucia, config.authRateLimit));
   api.use('/admin', adminRoutes(users));
   api.use('/plans', plansRoutes(plans));
+  api.use('/training', trainingRoutes({ db, mailer, lucia, logger: log, publicOrigin: config.publicOrigin }));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -4,9 +4,11 @@
  */
 import type { Knex } from 'knex';
 import * as initial from './20261202_0001_initial';
+import * as training from './20261202_0004_training';
 
 const MIGRATIONS: Record<string, Knex.Migration> = {
   '20261202_0001_initial': initial,
+  '20261202_0004_training': training,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
