@@ -8,6 +8,7 @@ import { hashPassword } from '../../server/auth/password';
 import { loadDemoPlan } from '../../server/plans/demo-plan';
 import { plansRepo } from '../../server/plans/plans.repo';
 import { usersRepo } from '../../server/users/users.repo';
+import { seedTraining } from './training.seed';
 
 export const DEMO_PASSWORD = 'bench-demo-2026';
 
@@ -42,5 +43,6 @@ export async function seed(knex: Knex): Promise<SeedResult> {
     accounts += 1;
     if (plan) await plans.create(user.id, plan);
   }
+  if (accounts) await seedTraining(knex);
   return { accounts, ...(planSkipped ? { planSkipped } : {}) };
 }
