@@ -84,10 +84,14 @@ export function plantFault(plan: Plan, fault: PlantedFault): Transformed {
   }
 }
 
-function checked(plan: Plan): Transformed {
+/** With `paths` the problem names where in the document it is (for instructors); without, only what is wrong. */
+function checked(plan: Plan, paths = true): Transformed {
   const result = validatePlan(plan);
   if (result.ok) return { ok: true, plan: result.plan };
-  return { ok: false, problem: result.issues.map((i) => `${i.path}: ${i.message}`).join('; ') };
+  return {
+    ok: false,
+    problem: result.issues.map((i) => (paths ? `${i.path}: ${i.message}` : i.message)).join('; '),
+  };
 }
 
 /** Applies every fault in order; the first one that does not fit stops it. */
@@ -109,17 +113,17 @@ export function applyRepairStep(plan: Plan, step: RepairStep): Transformed {
         ...cs.filter((c) => !touches(c, step.change.pair)),
         step.change,
       ]);
-      return checked(next);
+      return checked(next, false);
     }
     case 'restore':
       if (!leadOwner(plan, step.part)) return { ok: false, problem: `No set or add-on "${step.part}"` };
       return { ok: true, plan: withLeadChanges(plan, step.part, (cs) => cs.filter((c) => !touches(c, step.pair))) };
     case 'cross-connect':
       if (step.port > plan.ksu.ports) return { ok: false, problem: `The KSU has no station port ${step.port}` };
-      return checked(withCrossConnect(plan, step.port, step.pair, step.lead));
+      return checked(withCrossConnect(plan, step.port, step.pair, step.lead), false);
     case 'replug':
       if (!plan.cables.some((c) => c.id === step.cable)) return { ok: false, problem: `No cable "${step.cable}"` };
-      return checked(withCableEnd(plan, step.cable, step.end, step.part, step.port));
+      return checked(withCableEnd(plan, step.cable, step.end, step.part, step.port), false);
   }
 }
 
