@@ -1,4 +1,5 @@
 import { createApp } from 'vue';
+import { VueQueryPlugin } from '@tanstack/vue-query';
 import App from './App.vue';
 import './plugins/fonts';
 import './styles/base.css';
@@ -7,5 +8,6 @@ import { createBrowserRouter } from './plugins/router';
 
 const app = createApp(App);
 app.use(pinia);
+app.use(VueQueryPlugin);
 app.use(createBrowserRouter(pinia));
 app.mount('#app');
