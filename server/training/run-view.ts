@@ -33,6 +33,11 @@ export function layoutOf(plan: Plan): Layout {
     })),
     lines: plan.ksu.lines.map((l) => ({ number: l.number, label: l.label })),
     stations: plan.ksu.stations.map((s) => ({ id: s.id, code: s.code, label: s.label })),
+    cords: plan.cables.flatMap((c) => {
+      const set = plan.sets.find((s) => s.id === c.from.part);
+      return set ? [{ id: c.id, label: `${set.name}'s cord` }] : [];
+    }),
+    ksuPorts: plan.ksu.ports,
   };
 }
 

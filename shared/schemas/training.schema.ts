@@ -128,6 +128,9 @@ export const LayoutSchema = z
     ),
     lines: z.array(z.object({ number: z.number().int(), label: z.string() }).strict()),
     stations: z.array(z.object({ id: z.string(), code: z.string(), label: z.string() }).strict()),
+    /** The sets' station cords, by the set they come from, and how many station ports the KSU has. */
+    cords: z.array(z.object({ id: z.string(), label: z.string() }).strict()),
+    ksuPorts: z.number().int(),
   })
   .strict();
 export type Layout = z.infer<typeof LayoutSchema>;
