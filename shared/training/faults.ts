@@ -3,6 +3,7 @@
  * A fault that does not fit the plan (unknown part, nothing to undo) is reported as a problem, never thrown.
  */
 import {
+  cure,
   effectiveCrossConnect,
   validatePlan,
   type CrossConnect,
@@ -203,4 +204,38 @@ export function describeRepairStep(plan: Plan, step: RepairStep): string {
     case 'replug':
       return `Plug ${partName(plan, step.cable)} into ${partName(plan, step.part)}, port ${step.port}`;
   }
+}
+
+/**
+ * The repair that undoes the faults, for the puzzle maker to start from: lift what was left on, put back what was
+ * lifted, restore the cross-connect entry and the cable end; a wrong set gets the engine's cure for it.
+ */
+export function undoingRepair(plan: Plan, faults: readonly PlantedFault[]): RepairStep[] {
+  const healthy = effectiveCrossConnect(plan.ksu);
+  return faults.flatMap((fault): RepairStep[] => {
+    switch (fault.kind) {
+      case 'lead-left-on': {
+        const lift = leadOwner(plan, fault.part)?.leadChanges.find((c) => c.kind === 'lift' && c.pair === fault.pair);
+        return lift ? [{ kind: 'lead', part: fault.part, change: lift }] : [];
+      }
+      case 'lead-wrongly-lifted':
+        return [{ kind: 'restore', part: fault.part, pair: fault.pair }];
+      case 'cross-connect-wrong': {
+        const entry = healthy.find((c) => c.port === fault.port && c.pair === fault.pair);
+        return [{ kind: 'cross-connect', port: fault.port, pair: fault.pair, lead: entry?.lead ?? null }];
+      }
+      case 'cable-wrong-port': {
+        const cable = plan.cables.find((c) => c.id === fault.cable);
+        return cable ? [{ kind: 'replug', cable: fault.cable, end: fault.end, ...cable[fault.end] }] : [];
+      }
+      case 'wrong-set-fitted': {
+        const planted = plantFault(plan, fault);
+        if (!planted.ok) return [];
+        return cure(planted.plan).changes.flatMap((c): RepairStep[] => [
+          { kind: 'lead', part: c.part, change: c.change },
+          ...(c.crossConnect ? [{ kind: 'cross-connect' as const, ...c.crossConnect }] : []),
+        ]);
+      }
+    }
+  });
 }
