@@ -16,6 +16,7 @@ import {
   probeState,
   probes,
   sightingOf,
+  undoingRepair,
   type PuzzleSpec,
 } from '../../shared/training/index';
 
@@ -150,4 +151,10 @@ describe('npm run puzzles -- --check', () => {
   it('exits 2 without --check', () => {
     expect(spawnSync('npx', ['tsx', 'server/cli/puzzles.ts'], { encoding: 'utf8' }).status).toBe(2);
   }, 60_000);
+});
+
+describe('the repair that undoes the faults (the puzzle maker’s starting point)', () => {
+  it.each(SHIPPED_PUZZLES.map((p) => [p.slug, p] as const))('cures %s', (_slug, puzzle) => {
+    expect(checkPuzzle({ ...puzzle, repair: undoingRepair(puzzle.plan, puzzle.faults) }).problems).toEqual([]);
+  });
 });
