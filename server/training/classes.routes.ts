@@ -42,6 +42,16 @@ const expiry = () => new Date(Date.now() + INVITATION_DAYS * 24 * 3600_000).toIS
 
 export const manages = (user: User, ownerId: string) => user.role === 'admin' || user.id === ownerId;
 
+/** Who may use the teaching routes. */
+export const staffOnly = requireRole('instructor', 'admin');
+
+/** The item when the signed-in user owns it (or is an admin); otherwise 404, as if it did not exist. */
+export async function managedOr404<T extends { ownerId: string }>(res: Response, found: Promise<T | null>, what: string): Promise<T> {
+  const item = await found;
+  if (!item || !manages(currentUser(res), item.ownerId)) throw notFound(what);
+  return item;
+}
+
 export interface ClassesRoutesDeps {
   classes: ClassesRepo;
   puzzles: PuzzlesRepo;
@@ -61,13 +71,8 @@ const invalidLink = () =>
 
 export function classesRoutes({ classes, puzzles, users, mailer, lucia, logger, publicOrigin }: ClassesRoutesDeps): Router {
   const router = Router();
-  const staff = requireRole('instructor', 'admin');
-
-  async function managedClass(res: Response, id: string) {
-    const found = await classes.find(id);
-    if (!found || !manages(currentUser(res), found.ownerId)) throw notFound('That class');
-    return found;
-  }
+  const staff = staffOnly;
+  const managedClass = (res: Response, id: string) => managedOr404(res, classes.find(id), 'That class');
 
   async function sendInvitation(classId: string, className: string, instructorName: string, email: string, invitationId?: string) {
     const token = randomBytes(32).toString('base64url');

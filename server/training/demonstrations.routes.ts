@@ -2,23 +2,21 @@
 import { Router, type Response } from 'express';
 import { z } from 'zod';
 import { SaveDemonstrationSchema } from '../../shared/schemas/training.schema';
-import { currentUser, requireRole, requireUser } from '../auth/auth.middleware';
+import { currentUser, requireUser } from '../auth/auth.middleware';
 import { notFound } from '../http/http-error';
 import { parseBody, parseParams } from '../http/validate';
 import type { ClassesRepo } from './classes.repo';
-import { manages } from './classes.routes';
+import { managedOr404, staffOnly } from './classes.routes';
 import type { PuzzlesRepo } from './puzzles.repo';
 
 const IdParams = z.object({ id: z.string().min(1).max(64) });
 
 export function demonstrationsRoutes({ classes, puzzles }: { classes: ClassesRepo; puzzles: PuzzlesRepo }): Router {
   const router = Router();
-  const staff = requireRole('instructor', 'admin');
+  const staff = staffOnly;
 
   async function managed(res: Response, id: string) {
-    const found = await puzzles.findDemonstration(id);
-    if (!found || !manages(currentUser(res), found.ownerId)) throw notFound('That demonstration');
-    const { ownerId: _owner, ...record } = found;
+    const { ownerId: _owner, ...record } = await managedOr404(res, puzzles.findDemonstration(id), 'That demonstration');
     return record;
   }
 

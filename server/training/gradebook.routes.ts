@@ -3,22 +3,20 @@ import { stringify } from 'csv-stringify/sync';
 import { Router, type Response } from 'express';
 import { z } from 'zod';
 import type { Gradebook, Progress } from '../../shared/schemas/training.schema';
-import { currentUser, requireRole, requireUser } from '../auth/auth.middleware';
-import { notFound } from '../http/http-error';
+import { currentUser, requireUser } from '../auth/auth.middleware';
 import { parseParams } from '../http/validate';
 import type { ClassesRepo } from './classes.repo';
-import { manages } from './classes.routes';
+import { managedOr404, staffOnly } from './classes.routes';
 import type { PuzzlesRepo } from './puzzles.repo';
 
 const IdParams = z.object({ id: z.string().min(1).max(64) });
 
 export function gradebookRoutes({ classes, puzzles }: { classes: ClassesRepo; puzzles: PuzzlesRepo }): Router {
   const router = Router();
-  const staff = requireRole('instructor', 'admin');
+  const staff = staffOnly;
 
   async function gradebook(res: Response, id: string): Promise<Gradebook> {
-    const found = await classes.find(id);
-    if (!found || !manages(currentUser(res), found.ownerId)) throw notFound('That class');
+    const found = await managedOr404(res, classes.find(id), 'That class');
     const assigned = (await classes.assignments(id)).filter((a) => a.kind === 'puzzle');
     const runs = await puzzles.runsOf({ assignmentIds: assigned.map((a) => a.id) });
     const members = await classes.members(id);

@@ -20,11 +20,11 @@ import {
   gradeSubmission,
   type PuzzleSpec,
 } from '../../shared/training/index';
-import { currentUser, requireRole, requireUser } from '../auth/auth.middleware';
+import { currentUser, requireUser } from '../auth/auth.middleware';
 import { HttpError, notFound } from '../http/http-error';
 import { issuesByPath, parseBody, parseParams } from '../http/validate';
 import type { ClassesRepo } from './classes.repo';
-import { manages } from './classes.routes';
+import { managedOr404, staffOnly } from './classes.routes';
 import type { PuzzlesRepo, RunRecord } from './puzzles.repo';
 import { describeAction, faultyPlan, runView, stateKey } from './run-view';
 
@@ -46,13 +46,8 @@ function checkedSpec(input: unknown): PuzzleSpec {
 
 export function puzzlesRoutes({ classes, puzzles }: { classes: ClassesRepo; puzzles: PuzzlesRepo }): Router {
   const router = Router();
-  const staff = requireRole('instructor', 'admin');
-
-  async function managedPuzzle(res: Response, id: string) {
-    const found = await puzzles.findPuzzle(id);
-    if (!found || !manages(currentUser(res), found.ownerId)) throw notFound('That puzzle');
-    return found;
-  }
+  const staff = staffOnly;
+  const managedPuzzle = (res: Response, id: string) => managedOr404(res, puzzles.findPuzzle(id), 'That puzzle');
 
   // ------------------------------------------------------------------ instructors and admins
 
@@ -74,7 +69,8 @@ export function puzzlesRoutes({ classes, puzzles }: { classes: ClassesRepo; puzz
     if (!shipped) throw notFound('That library puzzle');
     const { slug: _slug, ...spec } = shipped;
     const id = await puzzles.createPuzzle(currentUser(res).id, spec, slug);
-    res.status(201).json(await puzzles.findPuzzle(id));
+    const { ownerId: _owner, ...record } = (await puzzles.findPuzzle(id))!;
+    res.status(201).json(record);
   });
 
   router.get('/puzzles', staff, async (_req, res) => {
@@ -94,7 +90,8 @@ export function puzzlesRoutes({ classes, puzzles }: { classes: ClassesRepo; puzz
   router.post('/puzzles', staff, async (req, res) => {
     const { spec } = parseBody(CreatePuzzleSchema, req);
     const id = await puzzles.createPuzzle(currentUser(res).id, checkedSpec(spec));
-    res.status(201).json(await puzzles.findPuzzle(id));
+    const { ownerId: _owner, ...record } = (await puzzles.findPuzzle(id))!;
+    res.status(201).json(record);
   });
 
   router.get('/puzzles/:id', staff, async (req, res) => {

@@ -97,16 +97,8 @@ export function runView(spec: PuzzleSpec, assignment: Assignment, run: RunRecord
     puzzle: { title: spec.title, statement: spec.statement, level: spec.level, attemptLimit: spec.attemptLimit },
     dueAt: assignment.dueAt,
     layout: layoutOf(plan),
-    sets: sighting.sets.map((s) => ({
-      set: s.set,
-      offHook: s.offHook,
-      pressedKey: s.pressedKey,
-      handsFreeOn: s.handsFreeOn,
-      keys: s.keys.map((k) => ({ index: k.index, label: k.label, lamp: k.lamp })),
-      tones: [...s.tones],
-      buzzer: s.buzzer,
-      ringer: s.ringer,
-    })),
+    // sightingOf copies only what a person at the set perceives, field by field.
+    sets: sighting.sets,
     farEnds: run.state.lines.map((l) => ({
       line: l.line,
       ringing: l.ringing,

@@ -7,12 +7,12 @@
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
+import { freePort } from './global-setup';
 import {
   DEMO_ACCOUNTS,
   collectPageErrors,
@@ -25,18 +25,6 @@ import {
 } from '../support/browser';
 
 const chromiumPath = inject('chromiumPath');
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const address = srv.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 /** Picks an option of a naive-ui select: open it, click the option with this text. */
 async function choose(page: Page, select: Locator, option: string | RegExp): Promise<void> {
