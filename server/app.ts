@@ -28,6 +28,7 @@ import { accountWriteLimit } from './http/rate-limit';
 import type { Mailer } from './mail/mailer';
 import { plansLibraryRoutes } from './plans/plans-library';
 import { plansRepo } from './plans/plans.repo';
+import { trainingRoutes } from './training/training.routes';
 import { usersRepo } from './users/users.repo';
 
 /** Big enough for a plan with hundreds of parts and their positions. */
@@ -139,6 +140,7 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
   api.use('/admin', adminRoutes({ users, audit, auth, sessions }));
   api.use('/plans', accountWriteLimit(config.planWritesPerMinute));
   api.use(plansLibraryRoutes({ db, config, mailer, logger: log }));
+  api.use('/training', trainingRoutes({ db, mailer, sessions, logger: log, publicOrigin: config.publicOrigin }));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -4,6 +4,7 @@ import { hashPassword } from './auth/password';
 import type { Database } from './db/database';
 import { loadDemoPlan } from './plans/demo-plan';
 import { plansRepo } from './plans/plans.repo';
+import { seedTraining } from './training/training.seed';
 import { usersRepo } from './users/users.repo';
 
 export function seedDemo(db: Database): Promise<SeedResult> {
@@ -14,5 +15,6 @@ export function seedDemo(db: Database): Promise<SeedResult> {
     createPlan: (ownerId, plan) => plans.create(ownerId, plan),
     hashPassword,
     loadDemoPlan,
+    seedTraining: () => seedTraining(db),
   });
 }

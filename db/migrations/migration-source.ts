@@ -6,11 +6,13 @@ import type { Knex } from 'knex';
 import * as initial from './20261202_0001_initial';
 import * as accounts from './20261202_0002_accounts';
 import * as plansLibrary from './20261202_0003_plans_library';
+import * as training from './20261202_0004_training';
 
 const MIGRATIONS: Record<string, Knex.Migration> = {
   '20261202_0001_initial': initial,
   '20261202_0002_accounts': accounts,
   '20261202_0003_plans_library': plansLibrary,
+  '20261202_0004_training': training,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

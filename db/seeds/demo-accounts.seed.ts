@@ -29,6 +29,8 @@ export interface SeedDeps {
   hashPassword(password: string): Promise<string>;
   /** Throws with a readable message when the demo plan cannot be read. */
   loadDemoPlan(): Plan;
+  /** Adds the demo class, puzzles and demonstration once the demo accounts exist. */
+  seedTraining(): Promise<void>;
 }
 
 export interface SeedResult {
@@ -53,5 +55,6 @@ export async function seed(deps: SeedDeps): Promise<SeedResult> {
     accounts += 1;
     if (plan) await deps.createPlan(user.id, plan);
   }
+  if (accounts) await deps.seedTraining();
   return { accounts, ...(planSkipped ? { planSkipped } : {}) };
 }

@@ -18,6 +18,7 @@ declare module 'vue-router' {
 
 export const DRILL_ROLES: readonly Role[] = ['trainee', 'instructor', 'admin'];
 export const PEOPLE_ROLES: readonly Role[] = ['admin'];
+export const TEACHING_ROLES: readonly Role[] = ['instructor', 'admin'];
 
 export const routes: RouteRecordRaw[] = [
   {
@@ -60,9 +61,17 @@ export const routes: RouteRecordRaw[] = [
   },
   {
     path: '/drills',
-    name: 'drills',
-    component: () => import('@/pages/drills/index.vue'),
-    meta: { title: 'Drills', roles: DRILL_ROLES },
+    children: [
+      { path: '', name: 'drills', component: () => import('@/pages/drills/index.vue'), meta: { title: 'Drills', roles: DRILL_ROLES } },
+      { path: 'join/:token', name: 'drills-join', component: () => import('@/pages/drills/JoinPage.vue'), props: true, meta: { public: true, title: 'Join a class' } },
+      { path: 'progress', name: 'drills-progress', component: () => import('@/pages/drills/ProgressPage.vue'), meta: { title: 'My progress' } },
+      { path: 'classes/:id', name: 'drills-class', component: () => import('@/pages/drills/ClassDeskPage.vue'), props: true, meta: { title: 'Class desk', roles: TEACHING_ROLES } },
+      { path: 'puzzles/new', name: 'drills-puzzle-maker', component: () => import('@/pages/drills/PuzzleMakerPage.vue'), meta: { title: 'Puzzle maker', roles: TEACHING_ROLES } },
+      { path: 'hunt/:assignmentId', name: 'drills-hunt', component: () => import('@/pages/drills/FaultHuntPage.vue'), props: true, meta: { title: 'Fault hunt' } },
+      { path: 'demonstrations/new', name: 'drills-demo-builder', component: () => import('@/pages/drills/DemonstrationBuilderPage.vue'), meta: { title: 'Demonstration builder', roles: TEACHING_ROLES, fullBleed: true } },
+      { path: 'demonstrations/:id/present', name: 'drills-projector', component: () => import('@/pages/drills/ProjectorPage.vue'), props: (r) => ({ id: r.params.id, source: 'own' }), meta: { title: 'Projector view', roles: TEACHING_ROLES, fullBleed: true } },
+      { path: 'step-through/:id', name: 'drills-step-through', component: () => import('@/pages/drills/ProjectorPage.vue'), props: (r) => ({ id: r.params.id, source: 'assigned' }), meta: { title: 'Step-through', fullBleed: true } },
+    ],
   },
   {
     path: '/account',

@@ -18,7 +18,7 @@ declare module 'vitest' {
 
 export const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-function freePort(): Promise<number> {
+export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const srv = createServer();
     srv.once('error', reject);
