@@ -110,7 +110,10 @@ export function planSoundSweep(plan: Plan, opts: Pick<SweepOptions, 'events'> = 
   for (let i = 0; i < n; i++) if (!inGroup.has(i)) combinations *= moves[i].length;
   const events = sweepEvents(plan, opts.events).length;
   const ids = plan.sets.map((s) => s.id);
-  const reduction = { symmetric: groups.map((g) => g.map((i) => ids[i])), exhaustiveCombinations: exhaustive.combinations };
+  const reduction = {
+    symmetric: groups.map((g) => g.map((i) => ids[i])),
+    exhaustiveCombinations: exhaustive.combinations,
+  };
 
   if (combinations * events > SOUND_STATE_LIMIT) {
     const reduced = planSweep(plan, { ...opts, strategy: 'reduced' });

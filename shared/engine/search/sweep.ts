@@ -533,7 +533,9 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
   if (!complete)
     result.incompleteReason =
       planned.incompleteReason ??
-      (stopped ? `Stopped after ${visited} of ${planTotal} states.` : `Visited ${visited} of ${planTotal} states.`);
+      (stopped
+        ? `Stopped after ${visited} of ${planTotal} states.`
+        : `Visited ${visited} of ${planTotal} states.`);
   if (planned.reduction) result.reduction = planned.reduction;
   return result;
 }
