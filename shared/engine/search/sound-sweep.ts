@@ -8,7 +8,7 @@ import { getNetlist, type Plan } from './engine-port';
 import { planSweep, sweepEvents, type Planned, type SweepOptions } from './sweep';
 
 /** Largest number of states (mechanical combinations × KSU events) the default sweep visits. */
-export const SOUND_STATE_LIMIT = 1_500_000;
+export const SOUND_STATE_LIMIT = 4_000_000;
 
 /** Interchangeable sets are grouped at most this many at a time (their permutations are listed). */
 const MAX_GROUP = 6;

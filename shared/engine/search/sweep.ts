@@ -458,9 +458,19 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
   // those sets, in the image combination and at the same size (README, "Sound sweep").
   if (planned.images) {
     const ids = plan.sets.map((s) => s.id);
+    const addOnsOf = new Map<string, string[]>();
+    for (const a of plan.addOns) addOnsOf.set(a.serves, [...(addOnsOf.get(a.serves) ?? []), a.id]);
     for (const [, entry] of [...best]) {
       for (const image of planned.images(entry.combo).slice(1)) {
-        const rename = new Map(ids.map((id, i) => [id, ids[image.perm[i]]]));
+        // Sets trade places together with the add-ons serving them (findings name add-ons too).
+        const rename = new Map<string, string>();
+        ids.forEach((id, i) => {
+          const to = ids[image.perm[i]];
+          rename.set(id, to);
+          const mine = addOnsOf.get(id) ?? [];
+          const theirs = addOnsOf.get(to) ?? [];
+          mine.forEach((a, k) => rename.set(a, theirs[k] ?? a));
+        });
         const finding = { ...entry.finding, sets: entry.finding.sets.map((id) => rename.get(id) ?? id) };
         const key = findingKey(finding);
         const known = best.get(key);
