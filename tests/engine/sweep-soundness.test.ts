@@ -140,7 +140,9 @@ const planSpec = fc.record({
 });
 
 /** Many add-ons make the exhaustive reference slow: at most two add-ons, one when there are four sets. */
-function buildPlan(spec: fc.Infer<typeof planSpec>): Plan {
+type PlanSpec = typeof planSpec extends fc.Arbitrary<infer T> ? T : never;
+
+function buildPlan(spec: PlanSpec): Plan {
   const b = planBuilder('Random plan');
   const ports = 2;
   const ksu = b.ksu({ lines: spec.lines, stations: 2, ports });
