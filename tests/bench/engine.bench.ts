@@ -11,13 +11,13 @@ import {
   createMech,
   cureOptimal,
   evaluate,
+  evaluateNets,
   fillMech,
   getNetlist,
   sweep,
   type Plan,
   type SimState,
 } from '../../shared/engine/index';
-import { contactClosed, type Mech } from '../../shared/engine/model/nets';
 import { busyState, examplePlan, largePlan, setsOnOneAdapter } from './bench-plans';
 
 interface Figure {
@@ -55,28 +55,14 @@ async function measure(
   return { median: medianOf(cpu), wall: medianOf(wall), runs: cpu.length };
 }
 
-/** The floor: union-find over the closed contacts only, on the pre-solved static nets. */
-function floorFor(plan: Plan, state: SimState): () => number {
+/**
+ * The floor: the engine's per-state union-find (evaluateNets), which unions the closed contacts only over the
+ * pre-solved static nets, with no observations or findings.
+ */
+function floorFor(plan: Plan, state: SimState): () => unknown {
   const nl = getNetlist(plan);
-  const mech: Mech = fillMech(nl, state, createMech(nl));
-  const parent = new Int32Array(nl.denseCount);
-  const { ca, cb, cond, mech: owner, key, count } = nl.hot;
-  return () => {
-    for (let i = 0; i < parent.length; i++) parent[i] = i;
-    let unions = 0;
-    for (let i = 0; i < count; i++) {
-      if (!contactClosed(cond[i], owner[i], key[i], mech)) continue;
-      let a = ca[i];
-      while (parent[a] !== a) a = parent[a] = parent[parent[a]];
-      let b = cb[i];
-      while (parent[b] !== b) b = parent[b] = parent[parent[b]];
-      if (a !== b) {
-        parent[a] = b;
-        unions++;
-      }
-    }
-    return unions;
-  };
+  const mech = fillMech(nl, state, createMech(nl));
+  return () => evaluateNets(nl, mech);
 }
 
 /** The same plan as a new object, as after an edit in the Bench (the netlist cache is keyed by the object). */

@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { applyCure, checkRequired, cure, cureOptimal, sweep, type Plan } from '../../shared/engine/index';
 import { largePlan } from '../bench/bench-plans';
 import { examplePlan } from '../support/example-plans';
+import { withAddOnForEverySet } from './cure-plans';
 
 async function expectCleanCure(plan: Plan) {
   const result = await cureOptimal(plan);
@@ -42,14 +43,7 @@ describe('cure by integer programming', () => {
 
   it('names the finding it cannot clear when every set must keep its hands-free', async () => {
     const plan = examplePlan('two-set.json');
-    const addOns = plan.sets.map((s, i) => ({
-      id: `hf-${i}`,
-      name: `Speaker ${i}`,
-      template: 'hands-free-unit',
-      serves: s.id,
-      leadChanges: [],
-    }));
-    const strict: Plan = { ...plan, addOns };
+    const strict = withAddOnForEverySet(plan);
     const result = await cureOptimal(strict, { keepAddOn: plan.sets.map((s) => s.id) });
     expect(result.ok).toBe(false);
     expect(result.blocking?.reason).toMatch(/no change/);
