@@ -3,14 +3,14 @@
  * Runs the engine's sweep and cure off the main thread so the canvas stays responsive.
  * Cancelling is done by the page terminating this worker; progress is throttled to a few per second.
  */
-import { cure, sweep } from '@shared/engine';
+import { cureOptimal, sweep } from '@shared/engine';
 import type { SweepReply, SweepRequest } from './sweep-protocol';
 
 const PROGRESS_EVERY_MS = 80;
 
 const post = (reply: SweepReply) => (self as unknown as DedicatedWorkerGlobalScope).postMessage(reply);
 
-self.addEventListener('message', (event: MessageEvent<SweepRequest>) => {
+self.addEventListener('message', async (event: MessageEvent<SweepRequest>) => {
   const request = event.data;
   let last = 0;
   const onProgress = (done: number, total: number) => {
@@ -24,7 +24,7 @@ self.addEventListener('message', (event: MessageEvent<SweepRequest>) => {
       const result = sweep(request.plan, { onProgress, limit: request.limit });
       post({ type: 'sweep-done', id: request.id, result });
     } else {
-      const result = cure(request.plan);
+      const result = await cureOptimal(request.plan);
       post({ type: 'cure-done', id: request.id, result });
     }
   } catch (err) {

@@ -19,15 +19,15 @@ export function setsOnOneAdapter(sets: number, template = 'six-key-hf'): Plan {
  * A large installation: `adapters` four-jack adapters, each on its own KSU port, four sets on each (templates in
  * turn), a hands-free add-on in front of every fourth set.
  */
-export function largePlan(adapters = 10): Plan {
+export function largePlan(adapters = 10, sets = adapters * 4): Plan {
   const templates = ['six-key', 'six-key-hf', 'ten-key', 'six-key-hf'];
-  const b = planBuilder(`${adapters * 4} sets on ${adapters} adapters`);
+  const b = planBuilder(`${sets} sets on ${adapters} adapters`);
   const ksu = b.ksu({ lines: 9, stations: Math.min(adapters, 40), ports: Math.max(adapters, 1) });
   let n = 0;
   for (let a = 1; a <= adapters; a++) {
     const ad = b.adapter('bridging-adapter-4', `Adapter ${a}`);
     b.cable(ksu.port(a), ad.plug);
-    for (let j = 1; j <= 4; j++) {
+    for (let j = 1; j <= 4 && n < sets; j++) {
       n++;
       const set = b.set(templates[(n - 1) % templates.length], `Set ${n}`, { station: ksu.stations[a - 1] });
       if (n % 4 === 0) {

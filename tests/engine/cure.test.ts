@@ -1,31 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import {
-  applyCure,
-  checkRequired,
-  cure,
-  sweep,
-  validatePlan,
-  type CureResult,
-  type Plan,
-} from '../../shared/engine/index';
+import { applyCure, checkRequired, cure, sweep, type CureResult, type Plan } from '../../shared/engine/index';
 import { examplePlan } from '../support/example-plans';
 import { planBuilder } from '../support/plan-builder';
+import { withAddOnForEverySet } from './cure-plans';
 
 const example = examplePlan;
-
-/** The plan with a hands-free add-on serving each set (not cabled: only its presence matters to the cost). */
-function withAddOnForEverySet(plan: Plan): Plan {
-  const addOns = plan.sets.map((s, i) => ({
-    id: `hf-${i}`,
-    name: `Speaker ${i}`,
-    template: 'hands-free-unit',
-    serves: s.id,
-    leadChanges: [],
-  }));
-  const r = validatePlan({ ...plan, addOns });
-  if (!r.ok) throw new Error(JSON.stringify(r.issues));
-  return r.plan;
-}
 
 const lifts = (r: CureResult) => r.changes.filter((c) => c.change.kind === 'lift');
 const moves = (r: CureResult) => r.changes.filter((c) => c.change.kind === 'move');

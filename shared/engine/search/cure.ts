@@ -62,7 +62,7 @@ export interface CureOptions {
 /** The cure proves minimality exhaustively only up to this many sets (the sweep is exhaustive there). */
 export const EXHAUSTIVE_CURE_SETS = 3;
 
-interface Candidate extends CureChange {
+export interface Candidate extends CureChange {
   id: string;
   /** The pair of the part this change touches (two changes on one pair of one part never combine). */
   pair: number;
@@ -72,7 +72,7 @@ interface Candidate extends CureChange {
 }
 
 /** A problem the current change set still has: a finding shown in some state, or a required function failing. */
-type Problem = { finding: Finding } | { failure: RequiredFailure };
+export type Problem = { finding: Finding } | { failure: RequiredFailure };
 
 /**
  * A state that showed a finding, remembered as its KSU event and the sets' positions, so it can be set up again on
@@ -86,7 +86,7 @@ interface Probe {
 // ---------------------------------------------------------------------------------------------------------------
 // Applying changes
 
-function withChanges(plan: Plan, changes: readonly CureChange[]): Plan {
+export function withChanges(plan: Plan, changes: readonly CureChange[]): Plan {
   // A plan is plain JSON: a JSON round trip is its deep copy (and needs no DOM or Node global).
   const next = JSON.parse(JSON.stringify(plan)) as Plan;
   for (const ch of changes) {
@@ -320,7 +320,7 @@ function moveCandidates(plan: Plan, setId: string, ports: number[]): Candidate[]
 }
 
 /** Candidates for clearing one problem, taken from its conductor path or, for required functions, its sets. */
-function candidatesFor(plan: Plan, problem: Problem, ports: number[]): Candidate[] {
+export function candidatesFor(plan: Plan, problem: Problem, ports: number[]): Candidate[] {
   const out: Candidate[] = [];
   const isPart = (id: string) => plan.sets.some((s) => s.id === id) || plan.addOns.some((a) => a.id === id);
   const everyLeadOf = (setIds: string[]) => {
@@ -548,7 +548,7 @@ function nodeKey(node: readonly Candidate[]): string {
     .join(' ');
 }
 
-function publicChange(c: Candidate): CureChange {
+export function publicChange(c: Candidate): CureChange {
   const out: CureChange = { part: c.part, change: c.change, cost: c.cost };
   if (c.crossConnect) out.crossConnect = c.crossConnect;
   if (c.replaces) out.replaces = c.replaces;

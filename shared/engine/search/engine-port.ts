@@ -19,3 +19,4 @@ export { applyLeadChanges } from '../model/netlist';
 export type { Plan, LeadChange, CrossConnect, KeySet, AddOn } from '../document/plan.schema';
 export type { SimState, SimAction, SetState } from '../sim/state.schema';
 export type { Evaluation, Finding, FindingCode, Hop } from '../observe/evaluation.types';
+export { getNetlist, type Netlist } from '../model/netlist';

@@ -23,3 +23,11 @@ export {
   type CureResult,
 } from './cure';
 export { checkRequired, linesOfSet, type RequiredFailure } from './required';
+export { planSoundSweep, interchangeableSets, SOUND_STATE_LIMIT } from './sound-sweep';
+export {
+  cureOptimal,
+  type OptimalCureOptions,
+  type OptimalCureResult,
+  type CureChoiceCost,
+} from './cure-solver';
+export type { SweepReduction } from './sweep';

@@ -17,8 +17,17 @@ import {
   type SimAction,
   type SimState,
 } from './engine-port';
+import { planSoundSweep } from './sound-sweep';
 
 export type SweepStrategy = 'exhaustive' | 'reduced';
+
+/** How the default sweep covered the states (see README, "Sound sweep"). */
+export interface SweepReduction {
+  /** Groups of interchangeable sets (ids), each visited as a multiset of positions. */
+  symmetric: string[][];
+  /** Mechanical combinations the exhaustive sweep would visit. */
+  exhaustiveCombinations: number;
+}
 
 /**
  * Largest number of states the sweep visits exhaustively. Three six-key sets with one hands-free add-on and a
@@ -67,6 +76,10 @@ export interface SweepResult {
   /** False when shouldStop or limit ended the sweep before every planned state was visited. */
   complete: boolean;
   findings: SweptFinding[];
+  /** When complete is false: why, in plain words. */
+  incompleteReason?: string;
+  /** The exact reductions the default sweep used (absent for the exhaustive and reduced strategies). */
+  reduction?: SweepReduction;
 }
 
 /** One set's mechanical position. */
@@ -276,8 +289,18 @@ function applyAll(plan: Plan, state: SimState, actions: readonly SimAction[]): S
   return s;
 }
 
-interface Planned {
+export interface Planned {
   strategy: SweepStrategy;
+  /** Visits the combinations instead of forEachCombination (the sound sweep's multisets). */
+  forEach?: (visit: (combo: number[]) => boolean) => void;
+  /**
+   * Every combination equivalent to a visited one (the visited one first) with the permutation of set indices
+   * that maps it there: perm[i] is where set i goes.
+   */
+  images?: (combo: readonly number[]) => { combo: number[]; perm: number[] }[];
+  reduction?: SweepReduction;
+  /** Set when the plan is too large for a complete sweep. */
+  incompleteReason?: string;
   moves: SetMove[][];
   events: SweepEvent[];
   maxActive: number;
@@ -330,7 +353,12 @@ export function planSweep(plan: Plan, opts: Pick<SweepOptions, 'strategy' | 'eve
  * smallest state that shows it.
  */
 export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
-  const planned = planSweep(plan, opts);
+  const sound = (opts.strategy ?? 'auto') === 'auto' && !opts.exact;
+  return runSweep(plan, opts, sound ? planSoundSweep(plan, opts) : planSweep(plan, opts));
+}
+
+/** Visits the planned states; the default (sound) sweep hands in its own plan (sound-sweep.ts). */
+export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): SweepResult {
   const { moves, events } = planned;
   const limit = opts.limit ?? Number.POSITIVE_INFINITY;
   const start = initialState(plan);
@@ -378,7 +406,7 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
   // One mechanical state buffer for the whole sweep: a combination's nets are dropped before the next one's.
   const mechBuffer = opts.exact ? null : createMechFor(plan);
 
-  forEachCombination(moves, planned.maxActive, planned.sameGroup, (combo) => {
+  const visitCombination = (combo: number[]): boolean => {
     let comboSize = 0;
     let active = 0;
     const sets: SimState['sets'] = {};
@@ -421,8 +449,36 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
       if (visited % 256 === 0) opts.onProgress?.(visited, total);
     }
     return true;
-  });
+  };
+  if (planned.forEach) planned.forEach(visitCombination);
+  else forEachCombination(moves, planned.maxActive, planned.sameGroup, visitCombination);
   opts.onProgress?.(visited, total);
+
+  // Interchangeable sets: each finding of a visited combination stands for its images under the permutations of
+  // those sets, in the image combination and at the same size (README, "Sound sweep").
+  if (planned.images) {
+    const ids = plan.sets.map((s) => s.id);
+    const addOnsOf = new Map<string, string[]>();
+    for (const a of plan.addOns) addOnsOf.set(a.serves, [...(addOnsOf.get(a.serves) ?? []), a.id]);
+    for (const [, entry] of [...best]) {
+      for (const image of planned.images(entry.combo).slice(1)) {
+        // Sets trade places together with the add-ons serving them (findings name add-ons too).
+        const rename = new Map<string, string>();
+        ids.forEach((id, i) => {
+          const to = ids[image.perm[i]];
+          rename.set(id, to);
+          const mine = addOnsOf.get(id) ?? [];
+          const theirs = addOnsOf.get(to) ?? [];
+          mine.forEach((a, k) => rename.set(a, theirs[k] ?? a));
+        });
+        const finding = { ...entry.finding, sets: entry.finding.sets.map((id) => rename.get(id) ?? id) };
+        const key = findingKey(finding);
+        const known = best.get(key);
+        if (known === undefined || known.size > entry.size)
+          best.set(key, { finding, size: entry.size, opening: entry.opening, combo: image.combo });
+      }
+    }
+  }
 
   // applyAction is pure, so a state is reached as well from the state its first actions reach: the opening's state,
   // then the states after each set's moves, shared between the kept states that begin alike. Each kept state is
@@ -476,11 +532,20 @@ export function sweep(plan: Plan, opts: SweepOptions = {}): SweepResult {
   const findings = kept
     .sort((a, b) => a.swept.stateSize - b.swept.stateSize || a.key.localeCompare(b.key))
     .map((k) => k.swept);
-  return {
+  const complete = !stopped && visited === planTotal && !planned.incompleteReason;
+  const result: SweepResult = {
     strategy: planned.strategy,
     statesVisited: visited,
     statesPlanned: planTotal,
-    complete: !stopped && visited === planTotal,
+    complete,
     findings,
   };
+  if (!complete)
+    result.incompleteReason =
+      planned.incompleteReason ??
+      (stopped
+        ? `Stopped after ${visited} of ${planTotal} states.`
+        : `Visited ${visited} of ${planTotal} states.`);
+  if (planned.reduction) result.reduction = planned.reduction;
+  return result;
 }

@@ -1,0 +1,388 @@
+/**
+ * The cure as an integer program (HiGHS): one 0/1 variable per candidate change, fewest changes first and then the
+ * lowest cost, constraints added lazily from what the sweep of the changed plan still shows. Method: ./README.md
+ * ("Cure as an integer program").
+ */
+import type { LegacyHighs } from 'highs';
+import {
+  candidatesFor,
+  publicChange,
+  withChanges,
+  type Candidate,
+  type CureResult,
+  type Problem,
+} from './cure';
+import { stationPortOfSets, sweep } from './sweep';
+import { checkRequired, type RequiredFailure } from './required';
+import type { Finding, Plan } from './engine-port';
+
+export interface OptimalCureOptions {
+  /** Sets whose hands-free add-on must keep working (added to plan.required.handsFreeSets for this cure). */
+  keepAddOn?: string[];
+  /** Sets that may not be touched: no change in them or in the add-ons serving them. */
+  untouched?: string[];
+  /** Loads the solver; the default imports the `highs` package. A Web Worker may pass a loader with locateFile. */
+  loadSolver?: () => Promise<LegacyHighs>;
+  /** Largest number of solve-and-sweep rounds (default 40). */
+  maxRounds?: number;
+  shouldStop?: () => boolean;
+}
+
+/** What one of the options costs: the cure with it against the cure without it. */
+export interface CureChoiceCost {
+  set: string;
+  option: 'keep-add-on' | 'untouched';
+  /** Changes and cost weight of the cure with every option except this one (null: no cure without it either). */
+  without: { changes: number; weight: number } | null;
+  /** Extra changes and weight this option costs (null when either cure does not exist). */
+  extraChanges: number | null;
+  extraWeight: number | null;
+}
+
+export interface OptimalCureResult extends CureResult {
+  /** Solve-and-sweep rounds until the changed plan swept clean. */
+  rounds: number;
+  /** Total weight of the changes (each change 1000 plus its cost rank). */
+  weight: number;
+  /** Whether the final sweep of the cured plan was complete (false: a partial sweep, see its incompleteReason). */
+  verifiedBy: 'complete-sweep' | 'partial-sweep' | 'none';
+  /** The finding that no allowed change can clear, when there is no cure. */
+  blocking?: { finding?: Finding; failure?: RequiredFailure; reason: string };
+  choices: CureChoiceCost[];
+}
+
+/** Each change counts this much, so fewer changes always win; the cost rank breaks ties. */
+const CHANGE_WEIGHT = 1000;
+
+type Constraint =
+  /** At least one of these. */
+  | { kind: 'cover'; ids: string[] }
+  /** Not exactly this combination (a no-good cut): sum(in) - sum(out) <= |in| - 1. */
+  | { kind: 'not-exactly'; ids: string[] };
+
+let solverPromise: Promise<LegacyHighs> | null = null;
+function defaultSolver(): Promise<LegacyHighs> {
+  solverPromise ??= import('highs').then((m) => m.default());
+  return solverPromise;
+}
+
+interface Problemset {
+  candidates: Map<string, Candidate>;
+  constraints: Constraint[];
+  /** Keys of constraints added, so a problem adds its constraint once. */
+  seen: Set<string>;
+}
+
+function lpText(
+  ps: Problemset,
+  allowed: (c: Candidate) => boolean,
+): { text: string; names: Map<string, string> } {
+  const names = new Map<string, string>();
+  const vars: string[] = [];
+  for (const [id, c] of ps.candidates) {
+    if (!allowed(c)) continue;
+    const name = `x${names.size}`;
+    names.set(id, name);
+    vars.push(name);
+  }
+  const weight = (id: string) => CHANGE_WEIGHT + ps.candidates.get(id)!.rank;
+  const lines: string[] = [
+    'Minimize',
+    ` obj: ${vars.map((v, i) => `${weight([...names.keys()][i])} ${v}`).join(' + ') || '0 x_empty'}`,
+  ];
+  lines.push('Subject To');
+  let row = 0;
+  const term = (ids: string[]) => ids.filter((id) => names.has(id)).map((id) => names.get(id)!);
+  for (const con of ps.constraints) {
+    if (con.kind === 'cover') {
+      const t = term(con.ids);
+      if (t.length === 0) lines.push(` r${row++}: 0 x_empty >= 1`);
+      else lines.push(` r${row++}: ${t.join(' + ')} >= 1`);
+    } else {
+      const inside = new Set(term(con.ids));
+      const outside = vars.filter((v) => !inside.has(v));
+      const expr = [...inside].join(' + ') + outside.map((v) => ` - ${v}`).join('');
+      lines.push(` r${row++}: ${expr || '0 x_empty'} <= ${inside.size - 1}`);
+    }
+  }
+  // Two changes on one pair of one part never combine; two buzzer moves never take one pair of one port.
+  const groups = new Map<string, string[]>();
+  for (const [id, c] of ps.candidates) {
+    if (!names.has(id)) continue;
+    const keys = [`${c.part}|${c.pair}`];
+    if (c.crossConnect) keys.push(`cc|${c.crossConnect.port}|${c.crossConnect.pair}`);
+    for (const k of keys) groups.set(k, [...(groups.get(k) ?? []), names.get(id)!]);
+  }
+  for (const members of groups.values())
+    if (members.length > 1) lines.push(` r${row++}: ${members.join(' + ')} <= 1`);
+  lines.push('Binary', ` ${vars.join(' ')}${vars.length ? '' : 'x_empty'}`, 'End');
+  return { text: lines.join('\n'), names };
+}
+
+/**
+ * A finding's conductor path without the connector pins it passes through: only the part terminals entered or left
+ * by a lead remain, since only changing such a lead can break the path (a pin passed through an add-on's bridge
+ * stays connected whatever that add-on's own leads do).
+ */
+function leadHopsOnly(problem: Problem): Problem {
+  if (!('finding' in problem)) return problem;
+  const path = problem.finding.path.filter((h) => h.pin === undefined);
+  return path.length === problem.finding.path.length || path.length === 0
+    ? problem
+    : { finding: { ...problem.finding, path } };
+}
+
+/** Adds the constraint "some candidate of this problem is chosen"; false when the problem has no candidate. */
+function addCover(ps: Problemset, plan: Plan, problem: Problem, ports: number[]): boolean {
+  const cands = candidatesFor(plan, leadHopsOnly(problem), ports);
+  const key = cands
+    .map((c) => c.id)
+    .sort()
+    .join(' ');
+  if (ps.seen.has(key)) return cands.length > 0;
+  ps.seen.add(key);
+  for (const c of cands) if (!ps.candidates.has(c.id)) ps.candidates.set(c.id, c);
+  ps.constraints.push({ kind: 'cover', ids: cands.map((c) => c.id) });
+  return cands.length > 0;
+}
+
+interface LoopResult {
+  ok: boolean;
+  chosen: Candidate[];
+  weight: number;
+  rounds: number;
+  after: Finding[];
+  failures: RequiredFailure[];
+  verifiedBy: OptimalCureResult['verifiedBy'];
+  blocking?: OptimalCureResult['blocking'];
+  stopped: boolean;
+}
+
+/**
+ * Solve, apply, sweep; every finding or failure the changed plan still shows adds its constraint; until the changed
+ * plan sweeps clean and keeps the required functions, or the program has no solution.
+ */
+async function solveLoop(
+  plan: Plan,
+  ps: Problemset,
+  allowed: (c: Candidate) => boolean,
+  opts: OptimalCureOptions,
+): Promise<LoopResult> {
+  const highs = await (opts.loadSolver ?? defaultSolver)();
+  const ports = stationPortOfSets(plan);
+  const maxRounds = opts.maxRounds ?? 40;
+  let after: Finding[] = [];
+  let failures: RequiredFailure[] = [];
+  for (let round = 1; round <= maxRounds; round++) {
+    if (opts.shouldStop?.()) break;
+    const { text, names } = lpText(ps, allowed);
+    const solution = highs.solve(text);
+    if (solution.Status !== 'Optimal') {
+      // Infeasible: some constraint has no allowed candidate, or the candidates exclude each other.
+      const empty = ps.constraints.findIndex((c) => c.kind === 'cover' && !c.ids.some((id) => names.has(id)));
+      return {
+        ok: false,
+        chosen: [],
+        weight: 0,
+        rounds: round,
+        after,
+        failures,
+        verifiedBy: 'none',
+        stopped: false,
+        blocking: {
+          reason:
+            empty >= 0
+              ? 'no allowed change touches its conductor path'
+              : `the solver answered "${solution.Status}"`,
+        },
+      };
+    }
+    const chosen: Candidate[] = [];
+    for (const [id, name] of names) {
+      if ((solution.Columns[name]?.Primal ?? 0) > 0.5) chosen.push(ps.candidates.get(id)!);
+    }
+    chosen.sort((a, b) => a.id.localeCompare(b.id));
+    const weight = chosen.reduce((s, c) => s + CHANGE_WEIGHT + c.rank, 0);
+    const cured = withChanges(plan, chosen.map(publicChange));
+    const swept = sweep(cured);
+    failures = checkRequired(cured);
+    after = swept.findings.map((f) => f.finding);
+    if (after.length === 0 && failures.length === 0) {
+      return {
+        ok: true,
+        chosen,
+        weight,
+        rounds: round,
+        after,
+        failures,
+        verifiedBy: swept.complete ? 'complete-sweep' : 'partial-sweep',
+        stopped: false,
+      };
+    }
+    for (const f of swept.findings) addCover(ps, cured, { finding: f.finding }, ports);
+    // Lifting only takes connections away: a change set that takes away a required function, or whose remaining
+    // findings no candidate touches, is ruled out exactly (not its supersets).
+    ps.constraints.push({ kind: 'not-exactly', ids: chosen.map((c) => c.id) });
+  }
+  return {
+    ok: false,
+    chosen: [],
+    weight: 0,
+    rounds: maxRounds,
+    after,
+    failures,
+    verifiedBy: 'none',
+    stopped: true,
+  };
+}
+
+function partsOf(plan: Plan, setIds: readonly string[]): Set<string> {
+  const out = new Set(setIds);
+  for (const a of plan.addOns) if (setIds.includes(a.serves)) out.add(a.id);
+  return out;
+}
+
+/**
+ * The cure with the fewest lead changes (then the lowest cost) that clears every finding of the sweep and keeps the
+ * required functions, proved minimal by the integer program (see README). Asynchronous: it loads the solver.
+ */
+export async function cureOptimal(input: Plan, opts: OptimalCureOptions = {}): Promise<OptimalCureResult> {
+  const result = await cureOnce(input, opts);
+  const keep = opts.keepAddOn ?? [];
+  const untouched = opts.untouched ?? [];
+  // What each option costs: the same cure with that one option left out.
+  const options = [
+    ...keep.map((set) => ({ set, option: 'keep-add-on' as const })),
+    ...untouched.map((set) => ({ set, option: 'untouched' as const })),
+  ];
+  for (const choice of options) {
+    const without = await cureOnce(input, {
+      ...opts,
+      keepAddOn: keep.filter((s) => !(choice.option === 'keep-add-on' && s === choice.set)),
+      untouched: untouched.filter((s) => !(choice.option === 'untouched' && s === choice.set)),
+    });
+    const both = without.ok && result.ok;
+    result.choices.push({
+      ...choice,
+      without: without.ok ? { changes: without.changes.length, weight: without.weight } : null,
+      extraChanges: both ? result.changes.length - without.changes.length : null,
+      extraWeight: both ? result.weight - without.weight : null,
+    });
+  }
+  return result;
+}
+
+async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalCureResult> {
+  const keep = opts.keepAddOn ?? [];
+  const untouched = opts.untouched ?? [];
+  const plan: Plan = keep.length
+    ? {
+        ...input,
+        required: {
+          ...input.required,
+          handsFreeSets: [...new Set([...input.required.handsFreeSets, ...keep])],
+        },
+      }
+    : input;
+  const ports = stationPortOfSets(plan);
+  const first = sweep(plan);
+  const before = first.findings.map((f) => f.finding);
+  const baseFailures = checkRequired(plan);
+  const ps: Problemset = { candidates: new Map(), constraints: [], seen: new Set() };
+  const none = {
+    changes: [],
+    before,
+    requiredFailures: [] as RequiredFailure[],
+    proofOfMinimality: 'exhaustive' as const,
+    choices: [] as CureChoiceCost[],
+  };
+  if (before.length === 0 && baseFailures.length === 0) {
+    return {
+      ...none,
+      ok: true,
+      after: [],
+      searched: 1,
+      rounds: 0,
+      weight: 0,
+      verifiedBy: first.complete ? 'complete-sweep' : 'partial-sweep',
+      message: 'Nothing to cure: the sweep found no faults and every required function works.',
+    };
+  }
+  // Round zero: one constraint per finding of the plan, and per required function that already fails.
+  for (const f of first.findings) {
+    if (!addCover(ps, plan, { finding: f.finding }, ports)) {
+      return noCure(
+        before,
+        baseFailures,
+        { finding: f.finding, reason: 'no change the cure may make touches its conductor path' },
+        first.complete,
+      );
+    }
+  }
+  const forbidden = partsOf(plan, untouched);
+  const allowedWith = (blocked: Set<string>) => (c: Candidate) => !blocked.has(c.part);
+  const loop = await solveLoop(plan, ps, allowedWith(forbidden), opts);
+
+  const choices: CureChoiceCost[] = [];
+  if (!loop.ok) {
+    const blockingFinding = loop.after[0];
+    return {
+      ...noCure(
+        before,
+        loop.failures.length ? loop.failures : baseFailures,
+        loop.blocking ?? {
+          finding: blockingFinding,
+          reason: loop.stopped
+            ? 'the search stopped before the changed plan swept clean'
+            : 'no allowed change clears it',
+        },
+        first.complete,
+      ),
+      after: loop.after.length ? loop.after : before,
+      rounds: loop.rounds,
+      choices,
+    };
+  }
+  const n = loop.chosen.length;
+  return {
+    ok: true,
+    changes: loop.chosen.map(publicChange),
+    before,
+    after: [],
+    requiredFailures: [],
+    proofOfMinimality: first.complete ? 'exhaustive' : 'heuristic',
+    searched: loop.rounds,
+    rounds: loop.rounds,
+    weight: loop.weight,
+    verifiedBy: loop.verifiedBy,
+    choices,
+    message:
+      `${n} lead change${n === 1 ? '' : 's'} clear every finding and keep the required functions; ` +
+      'no cure with fewer changes exists among the lifts and buzzer moves considered.' +
+      (loop.verifiedBy === 'partial-sweep' ? ' The changed plan was checked by a partial sweep only.' : ''),
+  };
+}
+
+function noCure(
+  before: Finding[],
+  failures: RequiredFailure[],
+  blocking: NonNullable<OptimalCureResult['blocking']>,
+  complete: boolean,
+): OptimalCureResult {
+  const what = blocking.finding?.message ?? blocking.failure?.message ?? 'A finding';
+  return {
+    ok: false,
+    changes: [],
+    before,
+    after: blocking.finding ? [blocking.finding] : before,
+    requiredFailures: failures,
+    proofOfMinimality: complete ? 'exhaustive' : 'heuristic',
+    searched: 0,
+    rounds: 0,
+    weight: 0,
+    verifiedBy: 'none',
+    blocking,
+    choices: [],
+    message: `No cure: ${what.replace(/\.$/, '')} — ${blocking.reason}.`,
+  };
+}

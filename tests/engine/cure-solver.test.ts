@@ -1,0 +1,64 @@
+/** The cure as an integer program: the same answers as the breadth-first search where that search can answer, and
+ * answers where it cannot (the 40-set layout needs far more than eight changes). */
+import { describe, expect, it } from 'vitest';
+import { applyCure, checkRequired, cure, cureOptimal, sweep, type Plan } from '../../shared/engine/index';
+import { largePlan } from '../bench/bench-plans';
+import { examplePlan } from '../support/example-plans';
+import { withAddOnForEverySet } from './cure-plans';
+
+async function expectCleanCure(plan: Plan) {
+  const result = await cureOptimal(plan);
+  expect(result.ok, result.message).toBe(true);
+  const cured = applyCure(plan, result);
+  expect(sweep(cured).findings.map((f) => f.finding.message)).toEqual([]);
+  expect(checkRequired(cured)).toEqual([]);
+  return result;
+}
+
+describe('cure by integer programming', () => {
+  it.each(['demo-plan.json', 'two-set.json', 'six-and-ten.json', 'intercom.json'])(
+    'takes as few changes as the breadth-first search on %s',
+    async (file) => {
+      const plan = examplePlan(file);
+      const bySearch = cure(plan);
+      const result = await expectCleanCure(plan);
+      // The breadth-first search proves its answer minimal on these plans (proof 'exhaustive').
+      expect(bySearch.proofOfMinimality).toBe('exhaustive');
+      expect(result.changes).toHaveLength(bySearch.changes.length);
+      expect(result.proofOfMinimality).toBe('exhaustive');
+    },
+    60_000,
+  );
+
+  it('cures the 40-set layout, lifting pairs 23–25 in every hands-free wired set and add-on', async () => {
+    const plan = largePlan(10);
+    // Beyond the breadth-first search's reach (at most eight changes).
+    expect(cure(plan, { budget: 200 }).ok).toBe(false);
+    const result = await expectCleanCure(plan);
+    // 20 hands-free wired sets and 10 add-ons share pairs 23–25 with the ten-key sets' lines 6–9 and the KSU's
+    // station plan (templates/README.md, our own pair scheme): three lifts each. Arithmetic over the layout.
+    expect(result.changes).toHaveLength(30 * 3);
+    expect(new Set(result.changes.map((c) => c.change.pair))).toEqual(new Set([23, 24, 25]));
+  }, 120_000);
+
+  it('names the finding it cannot clear when every set must keep its hands-free', async () => {
+    const plan = examplePlan('two-set.json');
+    const strict = withAddOnForEverySet(plan);
+    const result = await cureOptimal(strict, { keepAddOn: plan.sets.map((s) => s.id) });
+    expect(result.ok).toBe(false);
+    expect(result.blocking?.reason).toMatch(/no change/);
+    expect(result.message).toMatch(/^No cure: /);
+  });
+
+  it('reports what keeping a set untouched costs', async () => {
+    const plan = examplePlan('two-set.json');
+    const free = await cureOptimal(plan);
+    const lifted = free.changes[0].part;
+    const result = await cureOptimal(plan, { untouched: [lifted] });
+    expect(result.ok).toBe(true);
+    expect(result.changes.every((c) => c.part !== lifted)).toBe(true);
+    expect(result.choices).toEqual([
+      expect.objectContaining({ set: lifted, option: 'untouched', extraChanges: 0 }),
+    ]);
+  }, 60_000);
+});
