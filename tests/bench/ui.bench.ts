@@ -260,7 +260,7 @@ async function main() {
     ] as const) {
       console.log(
         `  largest on ${name}: ${t.files
-          .slice(0, 5)
+          .slice(0, Number(process.env.UI_BENCH_LIST ?? 5))
           .map((f) => `${f.url.replace('/assets/', '')} ${kB(f.gzip)}`)
           .join(', ')}`,
       );
