@@ -16,7 +16,7 @@ export const benchLocale = createLocale(
     InputNumber: { placeholder: '' },
     Select: { placeholder: 'Choose one' },
     TimePicker: { placeholder: 'Choose a time' },
-    Pagination: { goto: 'Go to page', selectionSuffix: 'rows shown' },
+    Pagination: { goto: 'Go to page', selectionSuffix: 'per page' },
     Empty: { description: 'Nothing here yet' },
   },
   enUS,
