@@ -10,16 +10,16 @@
  *
  * Targets: landing ≤ 1.3× the bare page, Bench ≤ 3×, key press p95 ≤ 16.7 ms (one frame at 60 Hz).
  */
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { createServer as createHttpServer, type Server } from 'node:http';
-import { createServer as createNetServer } from 'node:net';
 import { loadavg, tmpdir } from 'node:os';
 import { extname, join, normalize } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import type { Page } from 'playwright-core';
 import { build } from 'vite';
 import vue from '@vitejs/plugin-vue';
+import { buildClient, freePort, startServer, stopServer } from '../browser/global-setup';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, openBrowser } from '../support/browser';
 import { largePlan } from './bench-plans';
 
@@ -30,29 +30,6 @@ const TARGETS = { landing: 1.3, bench: 3, pressP95: 16.7 } as const;
 interface Transfer {
   files: { url: string; gzip: number }[];
   gzip: number;
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createNetServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const address = srv.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      srv.close(() => resolve(port));
-    });
-  });
-}
-
-function buildClient(outDir: string): void {
-  const result = spawnSync(
-    'npx',
-    ['vite', 'build', '--logLevel', 'warn', '--outDir', outDir, '--emptyOutDir'],
-    {
-      stdio: 'inherit',
-    },
-  );
-  if (result.status !== 0) throw new Error('Building the client failed');
 }
 
 async function buildBare(outDir: string): Promise<void> {
@@ -82,38 +59,6 @@ function serveStatic(dir: string, port: number): Promise<Server> {
     res.end(readFileSync(file));
   });
   return new Promise((resolve) => server.listen(port, '127.0.0.1', () => resolve(server)));
-}
-
-async function startApp(clientDir: string, dir: string): Promise<{ baseUrl: string; child: ChildProcess }> {
-  const port = await freePort();
-  const baseUrl = `http://localhost:${port}`;
-  let log = '';
-  const child = spawn('npx', ['tsx', 'server/index.ts'], {
-    env: {
-      ...process.env,
-      PORT: String(port),
-      DATABASE_FILE: join(dir, 'ui-bench.sqlite'),
-      CLIENT_DIR: clientDir,
-      LOG_LEVEL: 'warn',
-      RATE_LIMIT_MAX: '1000',
-      NODE_ENV: 'test',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-    detached: true,
-  });
-  child.stdout?.on('data', (d) => (log += d));
-  child.stderr?.on('data', (d) => (log += d));
-  const deadline = Date.now() + 90_000;
-  while (Date.now() < deadline) {
-    if (child.exitCode !== null) throw new Error(`The server exited early (${child.exitCode}):\n${log}`);
-    try {
-      if ((await fetch(`${baseUrl}/api/health`)).ok) return { baseUrl, child };
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`The server did not answer /api/health within 90 s:\n${log}`);
 }
 
 /** Loads `url` and sums the gzip size of every script and style sheet it requested until the network was idle. */
@@ -197,7 +142,7 @@ async function main() {
     console.log('Building the client and the bare page …');
     buildClient(clientDir);
     await buildBare(bareDir);
-    const started = await startApp(clientDir, dir);
+    const started = await startServer(clientDir, join(dir, 'ui-bench.sqlite'));
     app = started.child;
     const { baseUrl } = started;
     const barePort = await freePort();
@@ -285,14 +230,7 @@ async function main() {
   } finally {
     await browser.close();
     bareServer?.close();
-    if (app?.pid && app.exitCode === null) {
-      try {
-        process.kill(-app.pid, 'SIGTERM');
-      } catch {
-        // already gone
-      }
-      await new Promise((r) => setTimeout(r, 500));
-    }
+    if (app) await stopServer(app);
     rmSync(dir, { recursive: true, force: true });
   }
 }
