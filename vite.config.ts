@@ -23,15 +23,11 @@ export default defineConfig({
     rolldownOptions: {
       output: {
         codeSplitting: {
+          // Only libraries that load together share a chunk. naive-ui is left to the per-page split: one
+          // group for it would hand every page the whole component kit.
           groups: [
-            // Priorities keep Vue itself out of the canvas chunk, so the first page does not load vue-flow.
             { name: 'vendor-flow', test: /node_modules[\\/]@vue-flow/, priority: 1 },
-            {
-              name: 'vendor-ui',
-              test: /node_modules[\\/](naive-ui|vueuc|vooks|seemly|css-render|@css-render|evtd|treemate|vdirs|date-fns|lodash-es)/,
-              priority: 2,
-            },
-            { name: 'vendor-vue', test: /node_modules[\\/](@vue|vue|vue-router|pinia)[\\/]/, priority: 3 },
+            { name: 'vendor-vue', test: /node_modules[\\/](@vue|vue|vue-router|pinia)[\\/]/, priority: 2 },
           ],
         },
       },

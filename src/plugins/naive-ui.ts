@@ -1,21 +1,24 @@
 /**
- * naive-ui pieces that live outside the component tree: the route loading bar.
- * It follows the same theme as the app through the theme store.
+ * The route loading bar. It is naive-ui's, but the first page must not wait for the component kit: the bar is
+ * fetched after the first navigation and shows from the second on (the first page has nothing to replace yet).
  */
 import type { Pinia } from 'pinia';
-import { computed } from 'vue';
-import { createDiscreteApi, darkTheme, lightTheme, type ConfigProviderProps } from 'naive-ui';
-import { useThemeStore } from '@/stores/theme.store';
-import { darkThemeOverrides, themeOverrides } from '@/theme';
+import type { NavigationProgress } from '@/router';
 
-export function themeFor(isDark: boolean): Pick<ConfigProviderProps, 'theme' | 'themeOverrides'> {
-  return isDark
-    ? { theme: darkTheme, themeOverrides: darkThemeOverrides }
-    : { theme: lightTheme, themeOverrides: themeOverrides };
-}
+type BarCall = keyof NavigationProgress;
 
-export function createDiscrete(pinia: Pinia) {
-  const theme = useThemeStore(pinia);
-  const configProviderProps = computed<ConfigProviderProps>(() => themeFor(theme.isDark));
-  return createDiscreteApi(['loadingBar'], { configProviderProps });
+export function lazyLoadingBar(pinia: Pinia): NavigationProgress {
+  let first = true;
+  let chain: Promise<void> = Promise.resolve();
+  let bar: Promise<NavigationProgress> | null = null;
+  const call = (method: BarCall) => {
+    if (first) {
+      if (method !== 'start') first = false;
+      return;
+    }
+    bar ??= import('./naive-discrete').then((m) => m.createLoadingBar(pinia));
+    const loaded = bar;
+    chain = chain.then(async () => (await loaded)[method]()).catch(() => undefined);
+  };
+  return { start: () => call('start'), finish: () => call('finish'), error: () => call('error') };
 }

@@ -5,13 +5,15 @@
 import type { Pinia } from 'pinia';
 import type { RouteLocationNormalized, RouteLocationRaw, Router } from 'vue-router';
 import { useRecentStore } from '@/stores/recent.store';
-import { useSessionStore } from '@/stores/session.store';
 import { ROLE_HOME } from './role-home';
 
 export async function decideAccess(
   to: RouteLocationNormalized,
   pinia: Pinia,
 ): Promise<true | RouteLocationRaw> {
+  if (to.meta.light) return true;
+  // Loaded on demand: the session brings the API client and its schemas, which a light page does not need.
+  const { useSessionStore } = await import('@/stores/session.store');
   const session = useSessionStore(pinia);
   if (!session.loaded) {
     try {

@@ -13,6 +13,8 @@ declare module 'vue-router' {
     roles?: readonly Role[];
     /** The page fills the window below the top bar (the canvas). */
     fullBleed?: boolean;
+    /** Drawn in the light shell, without the component kit or a session look-up, so a first visit loads little. */
+    light?: boolean;
   }
 }
 
@@ -25,7 +27,7 @@ export const routes: RouteRecordRaw[] = [
     path: '/',
     name: 'landing',
     component: () => import('@/pages/landing/index.vue'),
-    meta: { public: true, title: 'Key systems, wired right' },
+    meta: { public: true, light: true, title: 'Key systems, wired right' },
   },
   {
     path: '/sign-in',

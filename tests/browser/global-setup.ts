@@ -30,7 +30,7 @@ export function freePort(): Promise<number> {
   });
 }
 
-async function waitForHealth(url: string, child: ChildProcess, output: () => string): Promise<void> {
+export async function waitForHealth(url: string, child: ChildProcess, output: () => string): Promise<void> {
   const deadline = Date.now() + 90_000;
   while (Date.now() < deadline) {
     if (child.exitCode !== null) throw new Error(`The server exited early (${child.exitCode}):\n${output()}`);
@@ -43,6 +43,55 @@ async function waitForHealth(url: string, child: ChildProcess, output: () => str
     await new Promise((r) => setTimeout(r, 250));
   }
   throw new Error(`The server did not answer /api/health within 90 s:\n${output()}`);
+}
+
+/** Builds the client into `outDir` with the project's Vite config. */
+export function buildClient(outDir: string): void {
+  const build = spawnSync(
+    'npx',
+    ['vite', 'build', '--logLevel', 'warn', '--outDir', outDir, '--emptyOutDir'],
+    {
+      stdio: 'inherit',
+    },
+  );
+  if (build.status !== 0) throw new Error('Building the client failed');
+}
+
+/** The real server (the entry point of `npm start`) on a free port, with a fresh database, serving `clientDir`. */
+export async function startServer(
+  clientDir: string,
+  databaseFile: string,
+): Promise<{ baseUrl: string; child: ChildProcess }> {
+  const port = await freePort();
+  const baseUrl = `http://localhost:${port}`;
+  let log = '';
+  const child = spawn('npx', ['tsx', 'server/index.ts'], {
+    env: {
+      ...process.env,
+      PORT: String(port),
+      DATABASE_FILE: databaseFile,
+      CLIENT_DIR: clientDir,
+      LOG_LEVEL: 'warn',
+      RATE_LIMIT_MAX: '1000',
+      NODE_ENV: 'test',
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+    detached: true,
+  });
+  child.stdout?.on('data', (d) => (log += d));
+  child.stderr?.on('data', (d) => (log += d));
+  await waitForHealth(baseUrl, child, () => log);
+  return { baseUrl, child };
+}
+
+export async function stopServer(child: ChildProcess): Promise<void> {
+  if (!child.pid || child.exitCode !== null) return;
+  try {
+    process.kill(-child.pid, 'SIGTERM');
+  } catch {
+    // already gone
+  }
+  await new Promise((r) => setTimeout(r, 500));
 }
 
 export default async function setup(project: TestProject) {
@@ -59,43 +108,15 @@ export default async function setup(project: TestProject) {
   // A private build, so nothing that rebuilds dist/ meanwhile can pull the page's chunks away mid-run.
   const dir = mkdtempSync(join(tmpdir(), 'leadbench-browser-'));
   const clientDir = join(dir, 'client');
-  const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn', '--outDir', clientDir, '--emptyOutDir'], {
-    stdio: 'inherit',
-  });
-  if (build.status !== 0) throw new Error('Building the client for the browser tests failed');
+  buildClient(clientDir);
 
-  const port = await freePort();
-  const baseUrl = `http://localhost:${port}`;
-  let log = '';
-  const child = spawn('npx', ['tsx', 'server/index.ts'], {
-    env: {
-      ...process.env,
-      PORT: String(port),
-      DATABASE_FILE: join(dir, 'browser.sqlite'),
-      CLIENT_DIR: clientDir,
-      LOG_LEVEL: 'warn',
-      RATE_LIMIT_MAX: '1000',
-      NODE_ENV: 'test',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-    detached: true,
-  });
-  child.stdout?.on('data', (d) => (log += d));
-  child.stderr?.on('data', (d) => (log += d));
-  await waitForHealth(baseUrl, child, () => log);
+  const { baseUrl, child } = await startServer(clientDir, join(dir, 'browser.sqlite'));
 
   project.provide('baseUrl', baseUrl);
   project.provide('chromiumPath', chromiumPath);
 
   return async () => {
-    if (child.pid && child.exitCode === null) {
-      try {
-        process.kill(-child.pid, 'SIGTERM');
-      } catch {
-        // already gone
-      }
-      await new Promise((r) => setTimeout(r, 500));
-    }
+    await stopServer(child);
     rmSync(dir, { recursive: true, force: true });
   };
 }

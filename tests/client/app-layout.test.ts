@@ -46,7 +46,8 @@ afterEach(() => {
 
 describe('AppLayout', () => {
   it('shows sign-in and sign-up to an anonymous visitor, and no area navigation', async () => {
-    const { wrapper } = await mountLayout(null);
+    // The landing page has its own light shell; the app layout frames every other public page.
+    const { wrapper } = await mountLayout(null, '/forbidden');
     expect(wrapper.find('nav[aria-label="Main"]').exists()).toBe(false);
     expect(wrapper.text()).toContain('Sign in');
     expect(wrapper.text()).toContain('Create account');

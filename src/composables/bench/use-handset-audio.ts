@@ -1,19 +1,29 @@
 /**
- * What a handset hears, synthesised with Web Audio from the engine's tone mix and TONES table.
- * Each (tone, line) pair is its own source, so two lines joined on one handset sound as two tones
- * summed. Nothing is created before `enable()`, which must run inside a user gesture.
+ * What a set sounds, played with Web Audio from the tone plan (tone-plan.ts): the tones its handset hears, each
+ * (tone, line) its own source with its line circuit's own frequency and level, so two lines joined on one
+ * handset sound as two; the set's ringer and intercom buzzer; and a click when the handset seizes a line.
+ * Nothing is created before `enable()`, which must run inside a user gesture.
  */
 import { computed, onBeforeUnmount, ref, watch, type Ref } from 'vue';
 import { TONES, type ToneName } from '@shared/engine';
+import { SEIZE_CLICK, dbToGain, isSounding, newlySeized, setVoices, type Voice } from './tone-plan';
 
 export interface ToneOnLine {
   tone: ToneName;
   line: number;
 }
 
+/** What the set does besides its handset's tones; absent parts stay silent. */
+export interface SetAlerts {
+  ringer?: boolean;
+  buzzer?: boolean;
+  /** Lines the handset reaches; a newly reached one clicks. */
+  hears?: number[];
+}
+
 interface Source {
   startedAt: number;
-  tone: ToneName;
+  voice: Voice;
   oscillators: AudioScheduledSourceNode[];
   gate: GainNode;
   lit: boolean;
@@ -29,9 +39,7 @@ export function toneKey(t: ToneOnLine): string {
 
 /** Whether a tone with this cadence is sounding `elapsedMs` after it started. */
 export function toneIsOn(tone: ToneName, elapsedMs: number): boolean {
-  const spec = TONES[tone];
-  if (!spec.offMs) return true;
-  return elapsedMs % (spec.onMs + spec.offMs) < spec.onMs;
+  return isSounding(TONES[tone], elapsedMs);
 }
 
 /**
@@ -62,7 +70,22 @@ function murmur(ctx: AudioContext, out: GainNode): AudioScheduledSourceNode[] {
   return [noise, syllables];
 }
 
-export function useHandsetAudio(tones: Ref<ToneOnLine[]>) {
+/** A short decaying noise burst: the click of a line seized. */
+function click(ctx: AudioContext, out: GainNode): void {
+  const length = Math.ceil((ctx.sampleRate * SEIZE_CLICK.durationMs) / 1000);
+  const buffer = ctx.createBuffer(1, length, ctx.sampleRate);
+  const data = buffer.getChannelData(0);
+  for (let i = 0; i < length; i += 1) data[i] = (Math.random() * 2 - 1) * (1 - i / length) ** 2;
+  const burst = ctx.createBufferSource();
+  burst.buffer = buffer;
+  const level = ctx.createGain();
+  level.gain.value = dbToGain(SEIZE_CLICK.levelDb) * SOURCE_LEVEL * 2;
+  burst.connect(level).connect(out);
+  burst.onended = () => level.disconnect();
+  burst.start();
+}
+
+export function useHandsetAudio(tones: Ref<ToneOnLine[]>, alerts?: Ref<SetAlerts | null | undefined>) {
   const enabled = ref(false);
   const volume = ref(0.6);
   const muted = ref(false);
@@ -73,29 +96,48 @@ export function useHandsetAudio(tones: Ref<ToneOnLine[]>) {
   let timer: ReturnType<typeof setInterval> | null = null;
   const sources = new Map<string, Source>();
 
-  const wanted = computed(() => [...new Set(tones.value.map(toneKey))].sort().join(','));
+  const voices = computed(() =>
+    setVoices(tones.value, { ringer: alerts?.value?.ringer, buzzer: alerts?.value?.buzzer }),
+  );
+  const wanted = computed(() => voices.value.map((v) => v.key).join(','));
 
   function masterLevel() {
     return muted.value ? 0 : volume.value;
   }
 
-  function startSource(t: ToneOnLine) {
+  function startSource(voice: Voice) {
     if (!ctx || !master) return;
-    const spec = TONES[t.tone];
     const gate = ctx.createGain();
     gate.gain.value = 0;
+    let input: AudioNode = gate;
+    const oscillators: AudioScheduledSourceNode[] = [];
+    if (voice.modulationHz) {
+      // The bell struck at the ringing frequency: its level swings fully at that rate.
+      const strike = ctx.createGain();
+      strike.gain.value = 0.5;
+      const lfo = ctx.createOscillator();
+      lfo.frequency.value = voice.modulationHz;
+      const depth = ctx.createGain();
+      depth.gain.value = 0.5;
+      lfo.connect(depth).connect(strike.gain);
+      lfo.start();
+      oscillators.push(lfo);
+      strike.connect(gate);
+      input = strike;
+    }
     gate.connect(master);
-    const oscillators: AudioScheduledSourceNode[] = spec.frequencies.length
-      ? spec.frequencies.map((f) => {
-          const osc = ctx!.createOscillator();
-          osc.type = 'sine';
-          osc.frequency.value = f;
-          osc.connect(gate);
-          osc.start();
-          return osc;
-        })
-      : murmur(ctx, gate);
-    sources.set(toneKey(t), { startedAt: ctx.currentTime, tone: t.tone, oscillators, gate, lit: false });
+    if (voice.murmur) oscillators.push(...murmur(ctx, gate));
+    for (const p of voice.partials) {
+      const osc = ctx.createOscillator();
+      osc.type = p.shape;
+      osc.frequency.value = p.frequency;
+      const share = ctx.createGain();
+      share.gain.value = p.share;
+      osc.connect(share).connect(input);
+      osc.start();
+      oscillators.push(osc);
+    }
+    sources.set(voice.key, { startedAt: ctx.currentTime, voice, oscillators, gate, lit: false });
   }
 
   function stopSource(key: string) {
@@ -113,19 +155,19 @@ export function useHandsetAudio(tones: Ref<ToneOnLine[]>) {
   function tick() {
     if (!ctx) return;
     for (const s of sources.values()) {
-      const on = toneIsOn(s.tone, (ctx.currentTime - s.startedAt) * 1000);
+      const on = isSounding(s.voice.cadence, (ctx.currentTime - s.startedAt) * 1000);
       if (on === s.lit) continue;
       s.lit = on;
-      const level = on ? SOURCE_LEVEL / Math.max(1, s.oscillators.length) : 0;
+      const level = on ? SOURCE_LEVEL * dbToGain(s.voice.levelDb) : 0;
       s.gate.gain.setTargetAtTime(level, ctx.currentTime, 0.004);
     }
   }
 
   function sync() {
     if (!enabled.value || !ctx) return;
-    const next = new Map(tones.value.map((t) => [toneKey(t), t]));
+    const next = new Map(voices.value.map((v) => [v.key, v]));
     for (const key of [...sources.keys()]) if (!next.has(key)) stopSource(key);
-    for (const [key, t] of next) if (!sources.has(key)) startSource(t);
+    for (const [key, voice] of next) if (!sources.has(key)) startSource(voice);
   }
 
   async function enable() {
@@ -152,6 +194,12 @@ export function useHandsetAudio(tones: Ref<ToneOnLine[]>) {
   }
 
   watch(wanted, () => sync());
+  watch(
+    () => alerts?.value?.hears ?? [],
+    (after, before) => {
+      if (enabled.value && ctx && master && newlySeized(before ?? [], after).length) click(ctx, master);
+    },
+  );
   watch([volume, muted], () => {
     if (ctx && master) master.gain.setTargetAtTime(masterLevel(), ctx.currentTime, 0.01);
   });

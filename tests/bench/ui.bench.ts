@@ -1,0 +1,238 @@
+/**
+ * Client benchmark (npm run bench:ui): not a test. Builds the client and a bare one-button Vue + naive-ui page
+ * (tests/bench/bare/) with the same Vite, loads them in Chromium and prints:
+ *
+ * - transferred JS+CSS for the landing route and the Bench route, as gzip bytes of every script and style sheet
+ *   the page requested until the network fell quiet, and their ratio to the bare page's;
+ * - key press → frame time on a 40-set plan: a line key is pressed on a set, and the time is taken until the
+ *   frame is ready to paint (handler, store, engine, Vue patch, style and layout). The time until the next
+ *   painted frame is printed beside it; it also holds the wait for the display's next refresh.
+ *
+ * Targets: landing ≤ 1.3× the bare page, Bench ≤ 3×, key press p95 ≤ 16.7 ms (one frame at 60 Hz).
+ */
+import type { ChildProcess } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { createServer as createHttpServer, type Server } from 'node:http';
+import { loadavg, tmpdir } from 'node:os';
+import { extname, join, normalize } from 'node:path';
+import { gzipSync } from 'node:zlib';
+import type { Page } from 'playwright-core';
+import { build } from 'vite';
+import vue from '@vitejs/plugin-vue';
+import { buildClient, freePort, startServer, stopServer } from '../browser/global-setup';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, openBrowser } from '../support/browser';
+import { largePlan } from './bench-plans';
+
+const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+const PRESSES = Number(process.env.UI_BENCH_PRESSES ?? 300);
+const TARGETS = { landing: 1.3, bench: 3, pressP95: 16.7 } as const;
+
+interface Transfer {
+  files: { url: string; gzip: number }[];
+  gzip: number;
+}
+
+async function buildBare(outDir: string): Promise<void> {
+  await build({
+    root: join(process.cwd(), 'tests', 'bench', 'bare'),
+    configFile: false,
+    logLevel: 'warn',
+    plugins: [vue()],
+    build: { outDir, emptyOutDir: true },
+  });
+}
+
+const TYPES: Record<string, string> = {
+  '.html': 'text/html',
+  '.js': 'text/javascript',
+  '.css': 'text/css',
+  '.svg': 'image/svg+xml',
+};
+
+/** A plain static server for the bare page (no compression: the bench gzips each file itself). */
+function serveStatic(dir: string, port: number): Promise<Server> {
+  const server = createHttpServer((req, res) => {
+    const path = normalize(decodeURIComponent((req.url ?? '/').split('?')[0]!)).replace(/^(\.\.[/\\])+/, '');
+    let file = join(dir, path);
+    if (!existsSync(file) || statSync(file).isDirectory()) file = join(dir, 'index.html');
+    res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream' });
+    res.end(readFileSync(file));
+  });
+  return new Promise((resolve) => server.listen(port, '127.0.0.1', () => resolve(server)));
+}
+
+/** Loads `url` and sums the gzip size of every script and style sheet it requested until the network was idle. */
+async function transferOf(page: Page, url: string, ready: () => Promise<unknown>): Promise<Transfer> {
+  const pending: Promise<{ url: string; gzip: number } | null>[] = [];
+  const onResponse = (response: import('playwright-core').Response) => {
+    const type = response.request().resourceType();
+    const path = new URL(response.url()).pathname;
+    if (type !== 'script' && type !== 'stylesheet' && !/\.(m?js|css)$/.test(path)) return;
+    pending.push(
+      response
+        .body()
+        .then((body) => ({ url: path, gzip: gzipSync(body, { level: 9 }).length }))
+        .catch(() => null),
+    );
+  };
+  page.on('response', onResponse);
+  await page.goto(url, { waitUntil: 'load' });
+  await ready();
+  await page.waitForLoadState('networkidle');
+  page.off('response', onResponse);
+  const seen = new Map<string, number>();
+  for (const file of await Promise.all(pending)) if (file) seen.set(file.url, file.gzip);
+  const files = [...seen].map(([u, gzip]) => ({ url: u, gzip })).sort((a, b) => b.gzip - a.gzip);
+  return { files, gzip: files.reduce((sum, f) => sum + f.gzip, 0) };
+}
+
+/** Presses line keys on the sets in turn, in the page, and times each press to a ready frame and to a painted one. */
+/**
+ * Presses line keys on the sets in turn, in the page, and times each press to a ready frame and to a painted one.
+ * The in-page code is a string: the TypeScript runner would otherwise add helpers the page does not have.
+ */
+async function pressTimes(page: Page, presses: number): Promise<{ ready: number[]; painted: number[] }> {
+  const script = `(async (count) => {
+    const keys = [...document.querySelectorAll('button[data-testid^="key-"][aria-pressed]')];
+    if (keys.length === 0) throw new Error('No line keys on the Bench');
+    const task = () => new Promise((resolve) => {
+      const channel = new MessageChannel();
+      channel.port1.onmessage = () => resolve();
+      channel.port2.postMessage(0);
+    });
+    const frame = () => new Promise((resolve) => requestAnimationFrame(() => resolve()));
+    const ready = [];
+    const painted = [];
+    for (let i = 0; i < count; i++) {
+      // Spread the presses over many sets and keys; every press changes the simulation state.
+      const key = keys[(i * 7) % keys.length];
+      await frame();
+      await frame();
+      const start = performance.now();
+      const paint = new Promise((resolve) =>
+        requestAnimationFrame(() => task().then(() => resolve(performance.now()))),
+      );
+      key.click();
+      await task(); // the store's and Vue's queued work has run
+      document.documentElement.getBoundingClientRect(); // style and layout of the new frame
+      void document.body.offsetHeight;
+      ready.push(performance.now() - start);
+      painted.push((await paint) - start);
+    }
+    return { ready, painted };
+  })(${presses})`;
+  return page.evaluate(script) as Promise<{ ready: number[]; painted: number[] }>;
+}
+
+const kB = (bytes: number) => `${(bytes / 1000).toFixed(1)} kB`;
+const pct = (xs: number[], p: number) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.floor(s.length * p))]!;
+};
+
+async function main() {
+  if (!existsSync(CHROMIUM)) throw new Error(`Chromium not found at ${CHROMIUM}; set CHROMIUM_PATH`);
+  const dir = mkdtempSync(join(tmpdir(), 'leadbench-ui-bench-'));
+  const clientDir = join(dir, 'client');
+  const bareDir = join(dir, 'bare');
+  let app: ChildProcess | undefined;
+  let bareServer: Server | undefined;
+  const browser = { close: async () => {} };
+  try {
+    console.log('Building the client and the bare page …');
+    buildClient(clientDir);
+    await buildBare(bareDir);
+    const started = await startServer(clientDir, join(dir, 'ui-bench.sqlite'));
+    app = started.child;
+    const { baseUrl } = started;
+    const barePort = await freePort();
+    bareServer = await serveStatic(bareDir, barePort);
+
+    const session = await openBrowser(CHROMIUM, { width: 1440, height: 900 });
+    browser.close = session.close;
+    const { page, context } = session;
+
+    const bare = await transferOf(page, `http://127.0.0.1:${barePort}/`, () =>
+      page.getByRole('button', { name: 'Press' }).waitFor(),
+    );
+    const landing = await transferOf(page, `${baseUrl}/`, () =>
+      page.getByRole('heading', { level: 1 }).waitFor(),
+    );
+
+    // A signed-in restorer with the 40-set plan; the Bench route is then loaded afresh.
+    const signIn = await context.request.post(`${baseUrl}/api/auth/sign-in`, {
+      data: { email: DEMO_ACCOUNTS.restorer, password: DEMO_PASSWORD },
+    });
+    if (!signIn.ok()) throw new Error(`Sign-in failed: ${signIn.status()} ${await signIn.text()}`);
+    const plan = largePlan(10);
+    const created = await context.request.post(`${baseUrl}/api/plans`, { data: { document: plan } });
+    if (!created.ok()) throw new Error(`Saving the plan failed: ${created.status()} ${await created.text()}`);
+    const { id } = (await created.json()) as { id: string };
+    await page.goto('about:blank');
+    await page.evaluate(() => localStorage.clear()).catch(() => undefined);
+    const lineKeys = page.locator('button[data-testid^="key-"][aria-pressed]');
+    const bench = await transferOf(page, `${baseUrl}/plans/${id}`, async () => {
+      await page.locator('[data-testid^="node-"]').first().waitFor({ timeout: 60_000 });
+      await lineKeys.first().waitFor();
+    });
+    const keyCount = await lineKeys.count();
+    // Warm up (first evaluations compile the engine's paths), then measure.
+    await pressTimes(page, 20);
+    const times = await pressTimes(page, PRESSES);
+
+    const ratio = { landing: landing.gzip / bare.gzip, bench: bench.gzip / bare.gzip };
+    const press = {
+      p50: pct(times.ready, 0.5),
+      p95: pct(times.ready, 0.95),
+      paintP50: pct(times.painted, 0.5),
+      paintP95: pct(times.painted, 0.95),
+    };
+
+    console.log(`\nTransferred JS+CSS (gzip, level 9), load average ${loadavg()[0]!.toFixed(2)}`);
+    const row = (name: string, t: Transfer, r?: number, target?: number) =>
+      console.log(
+        `  ${name.padEnd(16)} ${kB(t.gzip).padStart(9)}  ${String(t.files.length).padStart(3)} files` +
+          (r === undefined
+            ? ''
+            : `  ${r.toFixed(2)}× bare (target ≤ ${target}×) ${r <= target! ? 'PASS' : 'MISS'}`),
+      );
+    row('bare page', bare);
+    row('landing route', landing, ratio.landing, TARGETS.landing);
+    row('Bench route', bench, ratio.bench, TARGETS.bench);
+    for (const [name, t] of [
+      ['landing', landing],
+      ['Bench', bench],
+    ] as const) {
+      console.log(
+        `  largest on ${name}: ${t.files
+          .slice(0, Number(process.env.UI_BENCH_LIST ?? 5))
+          .map((f) => `${f.url.replace('/assets/', '')} ${kB(f.gzip)}`)
+          .join(', ')}`,
+      );
+    }
+    console.log(
+      `\nKey press → frame ready, ${plan.sets.length}-set plan, ${keyCount} line keys, ${times.ready.length} presses`,
+    );
+    console.log(
+      `  p50 ${press.p50.toFixed(1)} ms, p95 ${press.p95.toFixed(1)} ms (target p95 ≤ ${TARGETS.pressP95} ms) ${press.p95 <= TARGETS.pressP95 ? 'PASS' : 'MISS'}`,
+    );
+    console.log(
+      `  to the next painted frame (includes the wait for the display refresh): p50 ${press.paintP50.toFixed(1)} ms, p95 ${press.paintP95.toFixed(1)} ms`,
+    );
+
+    const misses: string[] = [];
+    if (ratio.landing > TARGETS.landing)
+      misses.push(`landing ${ratio.landing.toFixed(2)}× > ${TARGETS.landing}×`);
+    if (ratio.bench > TARGETS.bench) misses.push(`Bench ${ratio.bench.toFixed(2)}× > ${TARGETS.bench}×`);
+    if (press.p95 > TARGETS.pressP95)
+      misses.push(`key press p95 ${press.p95.toFixed(1)} ms > ${TARGETS.pressP95} ms`);
+    console.log(misses.length ? `\nShort of target: ${misses.join('; ')}` : '\nAll targets met');
+  } finally {
+    await browser.close();
+    bareServer?.close();
+    if (app) await stopServer(app);
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+await main();
