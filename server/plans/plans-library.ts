@@ -1,21 +1,21 @@
 /** The plans library's routes in one place: plans, their revisions, files, shares and photos, and share links. */
 import { Router } from 'express';
 import type { Logger } from 'pino';
-import type { Config } from '../config';
 import type { Database } from '../db/database';
 import type { Mailer } from '../mail/mailer';
-import { photoStore } from '../photos/photo-store';
-import { photosRepo } from '../photos/photos.repo';
-import { photosRoutes } from '../photos/photos.routes';
-import { sharesRepo } from '../shares/shares.repo';
-import { linkRoutes, planSharesRoutes } from '../shares/shares.routes';
+import { photoStore } from './photo-store';
+import { photosRepo } from './photos.repo';
+import { photosRoutes } from './photos.routes';
+import { sharesRepo } from './shares.repo';
+import { linkRoutes, planSharesRoutes } from './shares.routes';
 import { plansRepo } from './plans.repo';
 import { plansRoutes } from './plans.routes';
-import { plansService } from './plans.service';
+import { plansService, type PlanLimits } from './plans.service';
 
 export interface PlansLibraryDeps {
   db: Database;
-  config: Config;
+  /** The parts of the server's settings the library uses. */
+  config: { plans: PlanLimits; photos: { maxBytes: number; dir: string }; publicOrigin: string };
   mailer: Mailer;
   logger: Logger;
 }

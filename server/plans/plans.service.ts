@@ -7,10 +7,9 @@ import type { Plan } from '../../shared/engine/index';
 import type { User } from '../../shared/schemas/auth.schema';
 import type { RevisionReason } from '../../shared/schemas/plan-revisions.schema';
 import type { PlanAccess, PlanRecord, PlanUsage } from '../../shared/schemas/plans.schema';
-import type { Config } from '../config';
 import { HttpError, notFound } from '../http/http-error';
-import type { PhotoStore } from '../photos/photo-store';
-import type { PhotosRepo } from '../photos/photos.repo';
+import type { PhotoStore } from './photo-store';
+import type { PhotosRepo } from './photos.repo';
 import type { PlanRow, PlansRepo, Viewer } from './plans.repo';
 
 /** Deleted plans stay recoverable this long. */
@@ -22,8 +21,16 @@ export interface PlansServiceDeps {
   plans: PlansRepo;
   photos: PhotosRepo;
   store: PhotoStore;
-  limits: Config['plans'];
+  limits: PlanLimits;
   logger: Logger;
+}
+
+/** The per-account quota and the plan size bound, from the server's settings. */
+export interface PlanLimits {
+  maxPlans: number;
+  maxBytes: number;
+  maxSets: number;
+  importMaxBytes: number;
 }
 
 export const viewerOf = (user: User): Viewer => ({ id: user.id, email: user.email.toLowerCase() });

@@ -17,7 +17,7 @@ import { currentUser, requireUser } from '../http/auth.middleware';
 import { HttpError, notFound } from '../http/http-error';
 import { parseBody, parseParams } from '../http/validate';
 import type { Mailer } from '../mail/mailer';
-import { viewerOf, type PlansService } from '../plans/plans.service';
+import { viewerOf, type PlansService } from './plans.service';
 import type { SharesRepo } from './shares.repo';
 
 const ShareParams = z.object({ id: z.string().min(1).max(64), shareId: z.string().min(1).max(64) });

@@ -15,8 +15,8 @@ import { currentUser, requireUser } from '../http/auth.middleware';
 import { HttpError, notFound } from '../http/http-error';
 import { singleUpload } from '../http/upload';
 import { parseBody, parseParams, parseQuery } from '../http/validate';
-import { PlanIdParams } from '../plans/plans.routes';
-import type { PlansService } from '../plans/plans.service';
+import { PlanIdParams } from './plans.routes';
+import type { PlansService } from './plans.service';
 import type { PhotoStore } from './photo-store';
 import { toPhoto, type PhotosRepo } from './photos.repo';
 
