@@ -3,14 +3,14 @@
  * Layers: document (plan, validation), model (templates → netlist → nets), observations (evaluate), search (sweep, cure).
  */
 export * from './document/plan.schema';
+export { formatPath, zodIssues, type Issue } from './document/issues';
 export {
   validatePlan,
   crossReferenceIssues,
-  formatPath,
   type PlanIssue,
   type ValidatePlanResult,
-} from './document/validate-plan';
-export { canConnect, type CanConnectResult } from './document/can-connect';
+} from './model/validate-plan';
+export { canConnect, type CanConnectResult } from './model/can-connect';
 export {
   pairColour,
   pinOf,
@@ -21,7 +21,7 @@ export {
   PIN_COUNT,
   type PairColour,
 } from './document/cable-code';
-export { leadTable, type LeadRow } from './document/lead-table';
+export { leadTable, type LeadRow } from './model/lead-table';
 
 export {
   TEMPLATES,
@@ -36,7 +36,8 @@ export {
 export type * from './templates/template.types';
 
 export { standardCrossConnect, effectiveCrossConnect } from './model/cross-connect';
-export { getNetlist, applyLeadChanges, type Netlist } from './model/netlist';
+export { getNetlist, type Netlist } from './model/netlist';
+export { applyLeadChanges } from './model/lead-changes';
 export { createMech, fillMech, evaluateNets, type Mech } from './model/nets';
 
 export * from './sim/state.schema';

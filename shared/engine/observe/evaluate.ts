@@ -14,7 +14,7 @@ import type {
   StationObservation,
   ToneName,
 } from './evaluation.types';
-import { computeFacts, isActive, selectedLines, type NetFacts } from './facts';
+import { computeFacts, isActive, selectedLines, type NetFacts } from '../model/facts';
 import {
   crossingSentence,
   PathFinder,

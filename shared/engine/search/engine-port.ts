@@ -15,7 +15,7 @@ export {
 } from '../observe/evaluate';
 export { getTemplate, TEMPLATES } from '../templates/part-templates';
 export { standardCrossConnect, effectiveCrossConnect } from '../model/cross-connect';
-export { applyLeadChanges } from '../model/netlist';
+export { applyLeadChanges } from '../model/lead-changes';
 export type { Plan, LeadChange, CrossConnect, KeySet, AddOn } from '../document/plan.schema';
 export type { SimState, SimAction, SetState } from '../sim/state.schema';
 export type { Evaluation, Finding, FindingCode, Hop } from '../observe/evaluation.types';

@@ -5,7 +5,7 @@
 import type { Plan } from '../document/plan.schema';
 import { getNetlist, type Netlist } from '../model/netlist';
 import { createMech, fillMech } from '../model/nets';
-import { computeFacts, selectedLines } from '../observe/facts';
+import { computeFacts, selectedLines } from '../model/facts';
 import type { FarState, LineState, SetState, SimAction, SimState } from './state.schema';
 
 /** Digits that make a complete outside number when no line's directory number matches first. */
