@@ -1,5 +1,5 @@
 /** Plans table: the only place that reads or writes saved plans. Rows become the shared API types. */
-import type { Plan } from '../../shared/engine/document/plan.schema';
+import type { Plan } from '../../shared/engine/documents';
 import type { PlanRecord, PlanSummary } from '../../shared/schemas/plans.schema';
 import type { Database } from '../db/database';
 import { newId } from '../users/users.repo';

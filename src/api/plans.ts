@@ -1,4 +1,4 @@
-import type { Plan } from '@shared/engine/document/plan.schema';
+import type { Plan } from '@shared/engine/documents';
 import { PlanListSchema, PlanRecordSchema } from '@shared/schemas';
 import { request } from './client';
 
