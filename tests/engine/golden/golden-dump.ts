@@ -11,7 +11,6 @@ import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { run } from '../../../server/cli/sim';
-import { readState } from '../../../server/cli/sim-state';
 import {
   actionProblem,
   applyCure,
@@ -21,6 +20,7 @@ import {
   evaluate,
   initialState,
   leadTable,
+  readState,
   sweep,
   validatePlan,
   type Plan,
