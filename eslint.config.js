@@ -36,4 +36,21 @@ export default tseslint.config(
       ],
     },
   },
+  {
+    // The client, the server and the database code reach the engine through its two declared entries only.
+    files: ['src/**/*.{ts,vue}', 'server/**/*.ts', 'db/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '(^@shared|/shared)/engine/(?!(index|documents)$).+',
+              message: 'Import the engine from @shared/engine (index.ts) or @shared/engine/documents only.',
+            },
+          ],
+        },
+      ],
+    },
+  },
 );

@@ -12,6 +12,7 @@ import { parseArgs } from 'node:util';
 import {
   cure,
   evaluate,
+  readState,
   sweep,
   validatePlan,
   type CureResult,
@@ -20,7 +21,6 @@ import {
   type SimState,
   type SweepResult,
 } from '../../shared/engine';
-import { readState } from './sim-state';
 
 export const EXIT_CLEAN = 0;
 export const EXIT_FINDINGS = 1;

@@ -6,7 +6,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
-import { PlanSchema } from '../../shared/engine/document/plan.schema';
+import { PlanSchema } from '../../shared/engine/documents';
 
 export const PLAN_SCHEMA_PATH = fileURLToPath(
   new URL('../../shared/engine/plan.schema.json', import.meta.url),

@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import type { Plan } from '../../shared/engine/document/plan.schema';
+import type { Plan } from '../../shared/engine/documents';
 import { checkPlanDocument } from './plan-document';
 
 export const DEMO_PLAN_FILE = fileURLToPath(

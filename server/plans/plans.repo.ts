@@ -4,7 +4,7 @@
  * single reads agree.
  */
 import type { Knex } from 'knex';
-import type { Plan } from '../../shared/engine/index';
+import type { Plan } from '../../shared/engine/documents';
 import type { PlanAccess, PlanListQuery, PlanRecord, PlanSummary } from '../../shared/schemas/plans.schema';
 import type {
   PlanRevision,

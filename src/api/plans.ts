@@ -1,5 +1,5 @@
 /** Saved plans and everything around them: list pages, revisions, files, shares and photos. */
-import type { Plan } from '@shared/engine/document/plan.schema';
+import type { Plan } from '@shared/engine/documents';
 import {
   LinkOpenedSchema,
   PlanCompareSchema,

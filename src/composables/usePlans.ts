@@ -1,6 +1,6 @@
 /** The signed-in user's plans with loading and error state for one page. */
 import { ref, shallowRef } from 'vue';
-import type { Plan } from '@shared/engine/document/plan.schema';
+import type { Plan } from '@shared/engine/documents';
 import type { PlanRecord, PlanSummary } from '@shared/schemas';
 import { plansApi } from '@/api/plans';
 

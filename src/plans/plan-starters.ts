@@ -2,7 +2,7 @@
  * Starting documents for a new plan: an empty installation (a KSU only) or a copy of the demo.
  * The demo file is written by the engine; until it exists the demo choice is simply not offered.
  */
-import { PLAN_VERSION, PlanSchema, type Plan } from '@shared/engine/document/plan.schema';
+import { PLAN_VERSION, PlanSchema, type Plan } from '@shared/engine/documents';
 
 export const BLANK_LINE_COUNT = 5;
 

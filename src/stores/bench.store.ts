@@ -6,6 +6,7 @@
 import { computed, ref, shallowRef } from 'vue';
 import { defineStore } from 'pinia';
 import {
+  findingKey,
   applyAction,
   applyCure as engineApplyCure,
   canConnect,
@@ -37,11 +38,7 @@ const HISTORY_LIMIT = 200;
 type Position = { x: number; y: number };
 
 /** A stable key for a finding so a selection survives re-evaluation when the same fault is still there. */
-export function findingKey(finding: Finding): string {
-  return [finding.code, finding.sets.join(','), finding.lines.join(','), finding.stations.join(',')].join(
-    '|',
-  );
-}
+export { findingKey };
 
 /** Parts whose presence changes what a simulation state can refer to. Moves and renames leave it alone. */
 function simShape(plan: Plan): string {

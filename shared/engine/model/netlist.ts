@@ -9,6 +9,7 @@ import type { Conductor, LeadChange, Plan } from '../document/plan.schema';
 import { getTemplate, ksuPortName } from '../templates/part-templates';
 import type { ElementKind, LeadSpec, PartKind, PartTemplate } from '../templates/template.types';
 import { effectiveCrossConnect } from './cross-connect';
+import { applyLeadChanges } from './lead-changes';
 
 export interface PartInfo {
   index: number;
@@ -139,27 +140,6 @@ function find(parent: Int32Array, x: number): number {
     x = parent[x];
   }
   return x;
-}
-
-/** The pair each lead ends up on after the lead changes, or null when lifted. */
-export function applyLeadChanges(
-  leads: readonly LeadSpec[],
-  changes: readonly LeadChange[],
-): (number | null)[] {
-  const at: (number | null)[] = leads.map((l) => l.pair);
-  for (const ch of changes) {
-    if (ch.kind === 'lift') {
-      leads.forEach((l, i) => {
-        if (at[i] === ch.pair && (ch.conductor === 'both' || ch.conductor === l.conductor)) at[i] = null;
-      });
-    } else {
-      const moving = leads.map((_, i) => at[i] === ch.pair);
-      moving.forEach((m, i) => {
-        if (m) at[i] = ch.toPair;
-      });
-    }
-  }
-  return at;
 }
 
 const cache = new WeakMap<Plan, Netlist>();

@@ -2,7 +2,6 @@
  * Per-state connectivity: union the closed contacts over the static components. This is the hot path of
  * sweeps, so it allocates nothing: the result lives in the netlist's scratch buffer until the next call.
  */
-import type { SimState } from '../sim/state.schema';
 import {
   COND_HANDS_FREE,
   COND_KEY,
@@ -30,8 +29,15 @@ export function createMech(nl: Netlist): Mech {
   };
 }
 
-/** Copy a SimState's set states into a Mech. holdBy: index of a set whose hold key is held down, or -1. */
-export function fillMech(nl: Netlist, state: SimState, mech: Mech, holdBy = -1): Mech {
+/** What the model reads of an operating state: each set's hookswitch, latched key and hands-free switch, by set id. */
+export interface SetPositions {
+  sets: Readonly<
+    Record<string, { offHook?: boolean; pressedKey?: number | null; handsFreeOn?: boolean } | undefined>
+  >;
+}
+
+/** Copy a state's set positions into a Mech. holdBy: index of a set whose hold key is held down, or -1. */
+export function fillMech(nl: Netlist, state: SetPositions, mech: Mech, holdBy = -1): Mech {
   for (const s of nl.sets) {
     const st = state.sets[s.id];
     mech.offHook[s.index] = st?.offHook ? 1 : 0;

@@ -1,6 +1,7 @@
 /** Observations and findings for one plan in one state: (plan, state) → nets → observations → findings. */
 import { pairColour } from '../document/cable-code';
 import type { Plan } from '../document/plan.schema';
+import { listWords } from '../document/words';
 import { getNetlist, type Netlist, type SetInfo } from '../model/netlist';
 import { createMech, fillMech, type Mech } from '../model/nets';
 import type { FarPhase, LineState, SimState } from '../sim/state.schema';
@@ -14,7 +15,7 @@ import type {
   StationObservation,
   ToneName,
 } from './evaluation.types';
-import { computeFacts, isActive, selectedLines, type NetFacts } from './facts';
+import { computeFacts, isActive, selectedLines, type NetFacts } from '../model/facts';
 import {
   crossingSentence,
   PathFinder,
@@ -70,9 +71,6 @@ function lineCadence(status: LineStatus): Cadence {
         ? 'flash'
         : 'dark';
 }
-
-const lineList = (ns: number[]) =>
-  ns.length <= 1 ? String(ns[0]) : `${ns.slice(0, -1).join(', ')} and ${ns[ns.length - 1]}`;
 
 /** The nets of one mechanical state (sets' hookswitch, keys, hands-free switch): reusable across line states. */
 export interface StateNets {
@@ -480,7 +478,7 @@ function mechanicalFindings(
       sets: involved.map((s) => s.id),
       lines: group,
       stations: [],
-      message: `Lines ${lineList(group)} are joined${how}.`,
+      message: `Lines ${listWords(group)} are joined${how}.`,
       path: p && finder ? finder.hopsOf(p) : [],
     });
   });
@@ -501,7 +499,7 @@ function mechanicalFindings(
         sets: [s.id],
         lines: heardNumbers,
         stations: [],
-        message: `${s.name} hears lines ${lineList(heardNumbers)} at once${p ? describeVia(c, p) : ''}.`,
+        message: `${s.name} hears lines ${listWords(heardNumbers)} at once${p ? describeVia(c, p) : ''}.`,
         path: p && finder ? finder.hopsOf(p) : [],
       });
     }

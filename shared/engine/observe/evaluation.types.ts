@@ -47,16 +47,8 @@ export interface StationObservation {
   assigned: string[];
 }
 
-export type FindingCode =
-  | 'LINES_JOINED'
-  | 'SET_HEARS_SEVERAL_LINES'
-  | 'SET_HEARS_UNSELECTED_LINE'
-  | 'LINE_LIT_UNATTENDED'
-  | 'BREAK_IN'
-  | 'INTERCOM_SOUNDS_SEVERAL'
-  | 'PRIVATE_LEAD_SHARED';
-
-export const FINDING_CODES: readonly FindingCode[] = [
+/** Every kind of finding, declared once; FindingCode is derived from it. */
+export const FINDING_CODES = [
   'LINES_JOINED',
   'SET_HEARS_SEVERAL_LINES',
   'SET_HEARS_UNSELECTED_LINE',
@@ -64,7 +56,9 @@ export const FINDING_CODES: readonly FindingCode[] = [
   'BREAK_IN',
   'INTERCOM_SOUNDS_SEVERAL',
   'PRIVATE_LEAD_SHARED',
-];
+] as const;
+
+export type FindingCode = (typeof FINDING_CODES)[number];
 
 /** Short names of the finding kinds, for lists, filters and work sheets. */
 export const FINDING_TITLES: Readonly<Record<FindingCode, string>> = {

@@ -4,14 +4,8 @@
  * ("Cure as an integer program").
  */
 import type { LegacyHighs } from 'highs';
-import {
-  candidatesFor,
-  publicChange,
-  withChanges,
-  type Candidate,
-  type CureResult,
-  type Problem,
-} from './cure';
+import { publicChange, withChanges, type CureResult } from './cure';
+import { candidatesFor, type Candidate, type Problem } from './cure-candidates';
 import { stationPortOfSets, sweep } from './sweep';
 import { checkRequired, type RequiredFailure } from './required';
 import type { Finding, Plan } from './engine-port';

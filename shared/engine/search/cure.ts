@@ -3,38 +3,24 @@
  * Method: ./README.md.
  */
 import {
-  applyAction,
-  applyLeadChanges,
+  applyActions,
   computeNets,
   evaluateFindings,
   evaluateWithNets,
-  getTemplate,
+  findLeadPart,
+  findSet,
   initialState,
   standardCrossConnect,
-  TEMPLATES,
   type CrossConnect,
   type Finding,
-  type LeadChange,
   type Plan,
-  type SimAction,
   type SimState,
 } from './engine-port';
-import { checkRequired, linesOfSet, type RequiredFailure } from './required';
+import { candidatesFor, type Candidate, type CureChange, type Problem } from './cure-candidates';
+import { checkRequired, type RequiredFailure } from './required';
 import { eventActions, stationPortOfSets, sweep, type SweepEvent, type SweepOptions } from './sweep';
 
-export interface CureChange {
-  /** Id of the set or add-on the change is made in. */
-  part: string;
-  change: LeadChange;
-  /** For a moved buzzer pair: the KSU cross-connect entry that feeds the new pair. */
-  crossConnect?: CrossConnect;
-  /** For a moved buzzer pair: the entry that fed the station on the old pair of that port, taken out. */
-  replaces?: CrossConnect;
-  /** For a moved buzzer pair sent to a station the set was not assigned to: the set's new station. */
-  station?: string;
-  /** What the change costs the user, in plain words. */
-  cost: string;
-}
+export type { CureChange } from './cure-candidates';
 
 export interface CureResult {
   ok: boolean;
@@ -62,18 +48,6 @@ export interface CureOptions {
 /** The cure proves minimality exhaustively only up to this many sets (the sweep is exhaustive there). */
 export const EXHAUSTIVE_CURE_SETS = 3;
 
-export interface Candidate extends CureChange {
-  id: string;
-  /** The pair of the part this change touches (two changes on one pair of one part never combine). */
-  pair: number;
-  /** Relative cost, for choosing between change sets of the same size. */
-  rank: number;
-  kind: 'lift' | 'move';
-}
-
-/** A problem the current change set still has: a finding shown in some state, or a required function failing. */
-export type Problem = { finding: Finding } | { failure: RequiredFailure };
-
 /**
  * A state that showed a finding, remembered as its KSU event and the sets' positions, so it can be set up again on
  * every changed plan.
@@ -90,7 +64,7 @@ export function withChanges(plan: Plan, changes: readonly CureChange[]): Plan {
   // A plan is plain JSON: a JSON round trip is its deep copy (and needs no DOM or Node global).
   const next = JSON.parse(JSON.stringify(plan)) as Plan;
   for (const ch of changes) {
-    const target = next.sets.find((s) => s.id === ch.part) ?? next.addOns.find((a) => a.id === ch.part);
+    const target = findLeadPart(next, ch.part);
     if (!target) continue;
     target.leadChanges = [...target.leadChanges, ch.change];
     if (ch.crossConnect) {
@@ -105,7 +79,7 @@ export function withChanges(plan: Plan, changes: readonly CureChange[]): Plan {
       ];
     }
     if (ch.station) {
-      const set = next.sets.find((s) => s.id === ch.part);
+      const set = findSet(next, ch.part);
       if (set) set.station = ch.station;
     }
   }
@@ -118,252 +92,7 @@ export function applyCure(plan: Plan, result: Pick<CureResult, 'changes'>): Plan
 }
 
 // ---------------------------------------------------------------------------------------------------------------
-// Candidates
-
-interface PartView {
-  id: string;
-  name: string;
-  kind: 'set' | 'add-on';
-  leads: { pair: number | null; conductor: 'tip' | 'ring'; scope: string; designation: string }[];
-  /** For a set: whether an add-on serves it. */
-  hasAddOn: boolean;
-  /** For an add-on: the name of the set it serves. */
-  servesName?: string;
-}
-
-function partView(plan: Plan, id: string): PartView | null {
-  const set = plan.sets.find((s) => s.id === id);
-  const addOn = plan.addOns.find((a) => a.id === id);
-  const doc = set ?? addOn;
-  const tpl = doc ? getTemplate(doc.template) : undefined;
-  if (!doc || !tpl) return null;
-  const at = applyLeadChanges(tpl.leads, doc.leadChanges);
-  return {
-    id,
-    name: doc.name,
-    kind: set ? 'set' : 'add-on',
-    leads: tpl.leads.map((l, i) => ({
-      pair: at[i],
-      conductor: l.conductor,
-      scope: l.scope,
-      designation: l.designation,
-    })),
-    hasAddOn: set ? plan.addOns.some((a) => a.serves === id) : false,
-    servesName: addOn ? (plan.sets.find((s) => s.id === addOn.serves)?.name ?? addOn.serves) : undefined,
-  };
-}
-
-/** The line a bus lead belongs to, from its designation ("L6 A" → 6). */
-function lineOfDesignation(designation: string): number | null {
-  const m = /^L(\d+)\b/.exec(designation);
-  return m ? Number(m[1]) : null;
-}
-
-function liftCost(plan: Plan, view: PartView, pair: number): { cost: string; rank: number } {
-  const leads = view.leads.filter((l) => l.pair === pair);
-  const scopes = new Set(leads.map((l) => l.scope));
-  if (view.kind === 'add-on') {
-    return { cost: `${view.name} no longer works for ${view.servesName}`, rank: 60 };
-  }
-  if (scopes.has('station')) return { cost: `${view.name} no longer buzzes for intercom calls`, rank: 80 };
-  if (scopes.has('bus')) {
-    const onKsu = new Set(plan.ksu.lines.map((l) => l.number));
-    const lines = [...new Set(leads.map((l) => lineOfDesignation(l.designation)).filter((l) => l !== null))];
-    const live = lines.filter((l) => onKsu.has(l));
-    if (live.length > 0) return { cost: `${view.name} loses line ${live.join(' and ')}`, rank: 100 };
-    return {
-      cost: `none today: the KSU has no line ${lines.join(' or ')}; ${view.name} could not use it if one is added`,
-      rank: 5,
-    };
-  }
-  if (view.hasAddOn) return { cost: `${view.name} loses its hands-free connection`, rank: 50 };
-  return { cost: `none: ${view.name} has no hands-free add-on (it can no longer take one)`, rank: 1 };
-}
-
-/**
- * Static check, no simulation: would lifting these leads take away something plan.required asks for?
- * A line lead of a line the set takes on the KSU, the buzzer of a set assigned to a station, the private leads of a
- * set (or add-on) whose hands-free must keep working.
- */
-function liftBreaksRequired(plan: Plan, view: PartView, leads: PartView['leads']): boolean {
-  const req = plan.required;
-  if (view.kind === 'add-on') {
-    const served = plan.addOns.find((a) => a.id === view.id)?.serves;
-    return served !== undefined && req.handsFreeSets.includes(served);
-  }
-  const set = plan.sets.find((s) => s.id === view.id);
-  if (!set) return false;
-  const lines = new Set(linesOfSet(plan, set.id).map((l) => l.line));
-  return leads.some(
-    (l) =>
-      (l.scope === 'bus' && req.allLinesOnEverySet && lines.has(lineOfDesignation(l.designation) ?? -1)) ||
-      (l.scope === 'station' && req.intercomPerStation && set.station !== undefined) ||
-      (l.scope === 'private' && req.handsFreeSets.includes(set.id)),
-  );
-}
-
-/**
- * Lifting a pair in a set or add-on; a single lead only where lifting the whole pair would take away a required
- * function and lifting that lead alone would not.
- */
-function liftCandidates(plan: Plan, partId: string, pair: number): Candidate[] {
-  const view = partView(plan, partId);
-  if (!view) return [];
-  const here = view.leads.filter((l) => l.pair === pair);
-  if (here.length === 0) return [];
-  const { cost, rank } = liftCost(plan, view, pair);
-  if (!liftBreaksRequired(plan, view, here)) {
-    return [
-      {
-        id: `${partId}/lift/${pair}`,
-        part: partId,
-        pair,
-        kind: 'lift',
-        change: { kind: 'lift', pair, conductor: 'both' },
-        cost,
-        rank,
-      },
-    ];
-  }
-  if (here.length < 2) return [];
-  return here
-    .filter((lead) => !liftBreaksRequired(plan, view, [lead]))
-    .map((lead) => ({
-      id: `${partId}/lift/${pair}/${lead.conductor}`,
-      part: partId,
-      pair,
-      kind: 'lift' as const,
-      change: { kind: 'lift' as const, pair, conductor: lead.conductor },
-      cost,
-      rank: rank + 0.5,
-    }));
-}
-
-const PAIRS_IN_TEMPLATES = new Set(TEMPLATES.flatMap((t) => t.leads.map((l) => l.pair)));
-
-/** Moves of a set's buzzer pair to a spare pair, each with the KSU cross-connect entry that feeds it. */
-function moveCandidates(plan: Plan, setId: string, ports: number[]): Candidate[] {
-  const setIndex = plan.sets.findIndex((s) => s.id === setId);
-  const view = partView(plan, setId);
-  const port = ports[setIndex];
-  if (!view || setIndex < 0 || port < 1) return [];
-  const fromPairs = [
-    ...new Set(view.leads.filter((l) => l.scope === 'station' && l.pair !== null).map((l) => l.pair!)),
-  ];
-  if (fromPairs.length === 0) return [];
-  // Spare: no lead of any set or add-on on this station port uses it, and the KSU puts nothing on it there.
-  const used = new Set<number>();
-  plan.sets.forEach((s, i) => {
-    if (ports[i] !== port) return;
-    for (const l of partView(plan, s.id)?.leads ?? []) if (l.pair !== null) used.add(l.pair);
-    for (const a of plan.addOns.filter((x) => x.serves === s.id)) {
-      for (const l of partView(plan, a.id)?.leads ?? []) if (l.pair !== null) used.add(l.pair);
-    }
-  });
-  for (const x of plan.ksu.crossConnect ?? standardCrossConnect(plan.ksu))
-    if (x.port === port) used.add(x.pair);
-  const assignedElsewhere = new Set(
-    plan.sets.filter((s) => s.id !== setId && s.station).map((s) => s.station),
-  );
-  const own = plan.sets[setIndex].station;
-  const stations = plan.ksu.stations
-    .map((s) => s.id)
-    .filter((id) => id === own || (!own && !assignedElsewhere.has(id)));
-  const crossConnect = plan.ksu.crossConnect ?? standardCrossConnect(plan.ksu);
-  // Names of the other sets on this port whose buzzer is on each pair.
-  const stayingOn = new Map<number, string[]>();
-  plan.sets.forEach((s, i) => {
-    if (i === setIndex || ports[i] !== port) return;
-    for (const l of partView(plan, s.id)?.leads ?? []) {
-      if (l.scope !== 'station' || l.pair === null || l.conductor !== 'tip') continue;
-      stayingOn.set(l.pair, [...(stayingOn.get(l.pair) ?? []), s.name]);
-    }
-  });
-  const out: Candidate[] = [];
-  for (const from of fromPairs) {
-    for (let to = 1; to <= 25; to++) {
-      if (used.has(to)) continue;
-      for (const station of stations) {
-        // The station's output on the old pair of this port goes with the set to the new pair.
-        const replaces = crossConnect.find(
-          (x) => x.port === port && x.pair === from && x.lead.kind === 'buzzer' && x.lead.station === station,
-        );
-        // Sets left on the old pair lose their buzzer when that was the last station output on it.
-        const stillFed = crossConnect.some(
-          (x) => x.port === port && x.pair === from && x.lead.kind === 'buzzer' && x !== replaces,
-        );
-        const stranded = replaces && !stillFed ? (stayingOn.get(from) ?? []) : [];
-        const code = plan.ksu.stations.find((s) => s.id === station)?.code ?? station;
-        const strandedText = stranded.length
-          ? `; ${stranded.join(' and ')} ${stranded.length === 1 ? 'stays' : 'stay'} on pair ${from}, which no station feeds any more`
-          : '';
-        out.push({
-          replaces,
-          id: `${setId}/move/${from}/${to}/${station}`,
-          part: setId,
-          pair: from,
-          kind: 'move',
-          change: { kind: 'move', pair: from, toPair: to },
-          crossConnect: { port, pair: to, lead: { kind: 'buzzer', station } },
-          station: station === own ? undefined : station,
-          cost: stranded.length
-            ? `spare pair ${to}, cross-connected at the KSU to station ${code}${strandedText}`
-            : `none: spare pair ${to}, cross-connected at the KSU to station ${code}`,
-          // Pairs no shipped template uses first (nothing added to this cable later can land on them), then
-          // lower pairs first, so the same plan always gets the same pair. Stranding other buzzers costs more.
-          rank: 2 + (PAIRS_IN_TEMPLATES.has(to) ? 0.5 : 0) + to / 1000 + 40 * stranded.length,
-        });
-      }
-    }
-  }
-  return out;
-}
-
-/** Candidates for clearing one problem, taken from its conductor path or, for required functions, its sets. */
-export function candidatesFor(plan: Plan, problem: Problem, ports: number[]): Candidate[] {
-  const out: Candidate[] = [];
-  const isPart = (id: string) => plan.sets.some((s) => s.id === id) || plan.addOns.some((a) => a.id === id);
-  const everyLeadOf = (setIds: string[]) => {
-    for (const id of setIds) {
-      for (const part of [id, ...plan.addOns.filter((a) => a.serves === id).map((a) => a.id)]) {
-        for (const pair of new Set(partView(plan, part)?.leads.map((l) => l.pair) ?? [])) {
-          if (pair !== null) out.push(...liftCandidates(plan, part, pair));
-        }
-      }
-    }
-  };
-  if ('finding' in problem) {
-    const { finding } = problem;
-    for (const hop of finding.path) {
-      if (hop.pair === undefined || !isPart(hop.part)) continue;
-      out.push(...liftCandidates(plan, hop.part, hop.pair));
-    }
-    // No conductor path to follow (e.g. a line held aside): any lead of the sets involved, or of every set.
-    if (finding.path.length === 0)
-      everyLeadOf(finding.sets.length > 0 ? finding.sets : plan.sets.map((s) => s.id));
-    if (finding.code === 'INTERCOM_SOUNDS_SEVERAL') {
-      for (const id of finding.sets) out.push(...moveCandidates(plan, id, ports));
-    }
-  } else {
-    const sets = problem.failure.sets.length > 0 ? problem.failure.sets : plan.sets.map((s) => s.id);
-    if (problem.failure.function === 'intercomPerStation') {
-      for (const id of sets) out.push(...moveCandidates(plan, id, ports));
-    }
-    // Lifting only takes connections away: it can cure something extra, never something missing.
-    if (problem.failure.kind === 'extra') everyLeadOf(sets);
-  }
-  const seen = new Set<string>();
-  return out.filter((c) => !seen.has(c.id) && seen.add(c.id));
-}
-
-// ---------------------------------------------------------------------------------------------------------------
 // Search
-
-function applyAll(plan: Plan, state: SimState, actions: readonly SimAction[]): SimState {
-  let s = state;
-  for (const a of actions) s = applyAction(plan, s, a);
-  return s;
-}
 
 function probeOf(event: SweepEvent, state: SimState): Probe {
   return { event, sets: state.sets };
@@ -395,7 +124,7 @@ class Trial {
     const key = `${probe.event.held}|${probe.event.ringing}|${probe.event.intercom}`;
     let opening = this.openings.get(key);
     if (!opening) {
-      opening = applyAll(this.plan, initialState(this.plan), eventActions(this.plan, probe.event));
+      opening = applyActions(this.plan, initialState(this.plan), eventActions(this.plan, probe.event));
       this.openings.set(key, opening);
     }
     const state = { ...opening, sets: probe.sets };

@@ -1,8 +1,20 @@
 /**
- * The few core functions sweep and cure call, gathered in one place so search/ depends on the core through one file.
+ * The core functions sweep and cure call, gathered in one place so search/ depends on the core through one file.
  * Imports point at the core's modules (not ../index) so that index.ts can re-export search/ without a cycle.
  */
-export { applyAction, initialState } from '../sim/actions';
+export { findAddOn, findLeadPart, findSet } from '../document/parts';
+export { stationCode } from '../document/ksu-leads';
+export { getTemplate, TEMPLATES } from '../templates/part-templates';
+export { lineOfDesignation } from '../templates/designations';
+export { standardCrossConnect, effectiveCrossConnect } from '../model/cross-connect';
+export {
+  applyLeadChanges,
+  liftCost,
+  partLeads,
+  type PartLeads,
+  type PlacedLead,
+} from '../model/lead-changes';
+export { applyAction, applyActions, initialState } from '../sim/actions';
 export {
   evaluate,
   evaluateWithNets,
@@ -13,9 +25,7 @@ export {
   computeNetsInto,
   createMechFor,
 } from '../observe/evaluate';
-export { getTemplate, TEMPLATES } from '../templates/part-templates';
-export { standardCrossConnect, effectiveCrossConnect } from '../model/cross-connect';
-export { applyLeadChanges } from '../model/netlist';
+export { findingKey } from '../observe/finding-key';
 export type { Plan, LeadChange, CrossConnect, KeySet, AddOn } from '../document/plan.schema';
 export type { SimState, SimAction, SetState } from '../sim/state.schema';
 export type { Evaluation, Finding, FindingCode, Hop } from '../observe/evaluation.types';

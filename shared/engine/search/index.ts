@@ -5,7 +5,6 @@ export {
   setMoves,
   sweepEvents,
   stationPortOfSets,
-  findingKey,
   EXHAUSTIVE_STATE_LIMIT,
   type SweepOptions,
   type SweepResult,

@@ -4,7 +4,8 @@
  * besides the wanted set or line is reached): lifting leads can only cure 'extra' failures, never 'missing' ones.
  */
 import {
-  applyAction,
+  applyActions,
+  findSet,
   evaluate,
   getTemplate,
   initialState,
@@ -29,14 +30,12 @@ function observe(plan: Plan, state: SimState): Evaluation {
 }
 
 function run(plan: Plan, actions: SimAction[], from: SimState = initialState(plan)): SimState {
-  let s = from;
-  for (const a of actions) s = applyAction(plan, s, a);
-  return s;
+  return applyActions(plan, from, actions);
 }
 
 /** Lines the set can take: a line key (or a fixed line) for a line the KSU has. */
 export function linesOfSet(plan: Plan, setId: string): { line: number; key: number | null }[] {
-  const set = plan.sets.find((s) => s.id === setId);
+  const set = findSet(plan, setId);
   const tpl = set ? getTemplate(set.template) : undefined;
   if (!tpl) return [];
   const onKsu = new Set(plan.ksu.lines.map((l) => l.number));
@@ -133,7 +132,7 @@ function checkIntercom(plan: Plan, out: RequiredFailure[]): void {
 
 function checkHandsFree(plan: Plan, out: RequiredFailure[]): void {
   for (const setId of plan.required.handsFreeSets) {
-    const set = plan.sets.find((s) => s.id === setId);
+    const set = findSet(plan, setId);
     const name = set?.name ?? setId;
     const first = linesOfSet(plan, setId).find((l) => l.key !== null);
     const hasAddOn = plan.addOns.some((a) => a.serves === setId);

@@ -3,7 +3,8 @@
  * Method and limits: ./README.md.
  */
 import {
-  applyAction,
+  applyActions,
+  findingKey,
   computeNetsInto,
   createMechFor,
   evaluate,
@@ -270,24 +271,7 @@ export function stationPortOfSets(plan: Plan): number[] {
   });
 }
 
-function sortedText(xs: readonly (string | number)[]): string {
-  if (xs.length < 2) return xs.length === 0 ? '' : String(xs[0]);
-  if (xs.length === 2) return xs[0] <= xs[1] ? `${xs[0]},${xs[1]}` : `${xs[1]},${xs[0]}`;
-  return [...xs].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0)).join(',');
-}
-
-/** Identity of a finding across states: code + sets + lines + stations, each in sorted order. */
-export function findingKey(f: Pick<Finding, 'code' | 'sets' | 'lines' | 'stations'>): string {
-  return `${f.code}|${sortedText(f.sets)}|${sortedText(f.lines)}|${sortedText(f.stations)}`;
-}
-
 const NONE: readonly Finding[] = [];
-
-function applyAll(plan: Plan, state: SimState, actions: readonly SimAction[]): SimState {
-  let s = state;
-  for (const a of actions) s = applyAction(plan, s, a);
-  return s;
-}
 
 export interface Planned {
   strategy: SweepStrategy;
@@ -375,7 +359,7 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
   }[] = [];
   for (const event of events) {
     const actions = eventActions(plan, event);
-    const state = applyAll(plan, start, actions);
+    const state = applyActions(plan, start, actions);
     const key = JSON.stringify(state);
     if (seenOpenings.has(key)) continue;
     seenOpenings.add(key);
@@ -437,7 +421,7 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
           : opening.mayAdd
             ? eventFindings(plan, { ...opening.state, sets }, nets)
             : NONE
-        : evaluate(plan, applyAll(plan, opening.state, actions!), { paths: false }).findings;
+        : evaluate(plan, applyActions(plan, opening.state, actions!), { paths: false }).findings;
       visited++;
       const size = opening.size + comboSize;
       for (let k = 0; k < found.length; k++) {
@@ -488,7 +472,7 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
     const opening = openings[o];
     let last = combo.length - 1;
     while (last >= 0 && combo[last] === 0) last--;
-    if (last < 0) return applyAll(plan, start, opening.actions);
+    if (last < 0) return applyActions(plan, start, opening.actions);
     let state = opening.state;
     let key = String(o);
     for (let i = 0; i < last; i++) {
@@ -496,12 +480,12 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
       if (combo[i] === 0) continue;
       let next = prefixStates.get(key);
       if (!next) {
-        next = applyAll(plan, state, moveActions(setIds[i], moves[i][combo[i]]));
+        next = applyActions(plan, state, moveActions(setIds[i], moves[i][combo[i]]));
         prefixStates.set(key, next);
       }
       state = next;
     }
-    return applyAll(plan, state, moveActions(setIds[last], moves[last][combo[last]]));
+    return applyActions(plan, state, moveActions(setIds[last], moves[last][combo[last]]));
   };
 
   // The kept states, reached by their actions, evaluated once more in full for paths and sentences. The opening's

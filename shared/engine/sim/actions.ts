@@ -5,7 +5,7 @@
 import type { Plan } from '../document/plan.schema';
 import { getNetlist, type Netlist } from '../model/netlist';
 import { createMech, fillMech } from '../model/nets';
-import { computeFacts, selectedLines } from '../observe/facts';
+import { computeFacts, selectedLines } from '../model/facts';
 import type { FarState, LineState, SetState, SimAction, SimState } from './state.schema';
 
 /** Digits that make a complete outside number when no line's directory number matches first. */
@@ -224,23 +224,9 @@ export function applyAction(plan: Plan, state: SimState, action: SimAction): Sim
   return next;
 }
 
-/** Why an action cannot apply to this plan, in plain words, or null when it can. applyAction ignores such actions. */
-export function actionProblem(plan: Plan, action: SimAction): string | null {
-  const nl = getNetlist(plan);
-  if ('set' in action) {
-    const info = nl.setById.get(action.set);
-    if (!info) return `There is no key set "${action.set}" in this plan.`;
-    if (action.kind === 'press-key' && !(info.keyLine[action.key] > 0) && action.key !== info.holdKey) {
-      return `${info.name} has no key ${action.key}.`;
-    }
-    if (action.kind === 'press-hold' && !info.holdKey) return `${info.name} has no hold key.`;
-    if (action.kind === 'hands-free' && !info.addOns.length) return `${info.name} has no hands-free add-on.`;
-  }
-  if ('line' in action && !nl.lines.some((l) => l.number === action.line)) {
-    return `The KSU has no line ${action.line}.`;
-  }
-  if (action.kind === 'intercom-call' && !nl.stations.some((s) => s.id === action.station)) {
-    return `The KSU has no intercom station "${action.station}".`;
-  }
-  return null;
+/** The state after each action in turn. */
+export function applyActions(plan: Plan, state: SimState, actions: readonly SimAction[]): SimState {
+  let s = state;
+  for (const a of actions) s = applyAction(plan, s, a);
+  return s;
 }

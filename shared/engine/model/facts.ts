@@ -2,8 +2,8 @@
  * Electrical facts of one state, read off the nets: which A-leads are grounded, which lines have a loop,
  * which set hears which line. Shared by the state machine (applyAction) and the observations (evaluate).
  */
-import type { ElementInfo, Netlist } from '../model/netlist';
-import { evaluateNets, type Mech } from '../model/nets';
+import type { ElementInfo, Netlist } from './netlist';
+import { evaluateNets, type Mech } from './nets';
 
 export interface NetFacts {
   /** Per line index (netlist.lines order). */

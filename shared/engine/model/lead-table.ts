@@ -1,9 +1,9 @@
 /** The lead table of one set or add-on: what each cord pair carries, after the lead changes. */
-import { applyLeadChanges } from '../model/netlist';
+import { applyLeadChanges } from './lead-changes';
 import { getTemplate } from '../templates/part-templates';
 import type { LeadScope } from '../templates/template.types';
-import { pairColour, PAIR_COUNT } from './cable-code';
-import type { Plan } from './plan.schema';
+import { pairColour, PAIR_COUNT } from '../document/cable-code';
+import type { Plan } from '../document/plan.schema';
 
 export interface LeadRow {
   pair: number;

@@ -5,32 +5,28 @@
  */
 import {
   checkRequired,
+  describeKsuLead,
   evaluate,
+  findSet,
   getTemplate,
   initialState,
+  leadChangeWork,
   leadTable,
   linesOfSet,
+  listWords,
   pairColour,
   pinOf,
+  servedName,
   standardCrossConnect,
-  type Conductor,
+  type ChangedLead,
   type CrossConnect,
-  type KsuLead,
   type LeadChange,
-  type LeadRow,
-  type LeadSpec,
   type PairColour,
   type Plan,
 } from '@shared/engine';
 
 /** One conductor a step handles: its designation, the set's terminal and the connector pin of its cord pair. */
-export interface SheetLead {
-  conductor: Conductor;
-  colour: string;
-  designation: string;
-  terminal: string;
-  pin: number;
-}
+export type SheetLead = ChangedLead;
 
 export interface SheetStep {
   step: number;
@@ -90,133 +86,38 @@ export interface WorkSheet {
   handChecks: SheetCheck[];
 }
 
-const CONDUCTORS: Conductor[] = ['tip', 'ring'];
-
-function conductorColour(colour: PairColour, conductor: Conductor): string {
-  return conductor === 'tip' ? colour.tip : colour.ring;
-}
-
 function pairText(pair: number): string {
   return `pair ${pair} (${pairColour(pair).name})`;
-}
-
-function joinWords(words: string[]): string {
-  if (words.length <= 1) return words.join('');
-  return `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
-}
-
-/** The line a line lead belongs to, from its trade designation ("L3 A1" → 3). */
-function lineOfDesignation(designation: string): number | null {
-  const match = /^L(\d+)\b/.exec(designation);
-  return match ? Number(match[1]) : null;
 }
 
 interface PartContext {
   plan: Plan;
   id: string;
-  kind: 'set' | 'add-on';
-  name: string;
-  /** Template leads of the part. */
-  leads: readonly LeadSpec[];
-  rows: LeadRow[];
-}
-
-function leadsOf(ctx: PartContext, pair: number, conductors: readonly Conductor[]): SheetLead[] {
-  const colour = pairColour(pair);
-  return CONDUCTORS.filter((c) => conductors.includes(c)).flatMap((conductor) => {
-    const spec = ctx.leads.find((l) => l.pair === pair && l.conductor === conductor);
-    return spec
-      ? [
-          {
-            conductor,
-            colour: conductorColour(colour, conductor),
-            designation: spec.designation,
-            terminal: spec.terminal,
-            pin: pinOf(pair, conductor),
-          },
-        ]
-      : [];
-  });
-}
-
-function liftAction(ctx: PartContext, pair: number, leads: SheetLead[], both: boolean): string {
-  const where = ctx.kind === 'set' ? 'the set' : 'the add-on';
-  const which = both ? 'both leads' : `the ${leads[0]?.conductor ?? 'lead'} lead`;
-  const each = leads.map((l) => `${l.conductor} (${l.colour}, cord pin ${l.pin}) off terminal ${l.terminal}`);
-  const kept = both ? '' : ` Leave the ${leads[0]?.conductor === 'tip' ? 'ring' : 'tip'} lead on.`;
-  return `Lift ${which} of ${pairText(pair)} inside ${where}: ${joinWords(each)}; insulate each end and tie it back.${kept}`;
-}
-
-function moveAction(pair: number, toPair: number, leads: SheetLead[]): string {
-  const to = pairColour(toPair);
-  const each = leads.map(
-    (l) =>
-      `at terminal ${l.terminal} take off the ${l.colour} ${l.conductor} (pin ${l.pin}) and land the ${conductorColour(to, l.conductor)} ${l.conductor} of pair ${toPair} (pin ${pinOf(toPair, l.conductor)})`,
-  );
-  return `Re-terminate ${pairText(pair)} leads on spare ${pairText(toPair)}: ${each.join('; ')}. Insulate the freed ${pairColour(pair).name} leads.`;
-}
-
-/** What lifting these leads takes away from the user, judged by the leads' scope in the lead table. */
-function liftCost(ctx: PartContext, row: LeadRow | undefined, leads: SheetLead[]): string {
-  const { plan, name } = ctx;
-  if (ctx.kind === 'add-on') {
-    const served = plan.addOns.find((a) => a.id === ctx.id)?.serves;
-    const servedName = plan.sets.find((s) => s.id === served)?.name ?? served ?? 'its set';
-    return `${name} no longer works for ${servedName}: its hands-free stops.`;
-  }
-  switch (row?.scope) {
-    case 'station':
-      return `${name} no longer buzzes for intercom calls.`;
-    case 'bus': {
-      const onKsu = new Set(plan.ksu.lines.map((l) => l.number));
-      const lines = [
-        ...new Set(leads.map((l) => lineOfDesignation(l.designation)).filter((l) => l !== null)),
-      ];
-      const live = lines.filter((l) => onKsu.has(l));
-      if (live.length) return `${name} loses line ${joinWords(live.map(String))}.`;
-      return `None today: the KSU has no line ${joinWords(lines.map(String))}; ${name} could not use it if one is added.`;
-    }
-    case 'private':
-      return plan.addOns.some((a) => a.serves === ctx.id)
-        ? `${name} loses its hands-free connection.`
-        : `None today: ${name} has no hands-free add-on (it can no longer take one).`;
-    default:
-      return 'None: the pair carries no lead in this part.';
-  }
-}
-
-function moveCost(ctx: PartContext, row: LeadRow | undefined, pair: number, toPair: number): string {
-  const what = row?.scope === 'station' ? `its intercom buzzer` : `these leads`;
-  return `None once the KSU feeds pair ${toPair} on ${ctx.name}'s station port (see KSU cross-connect) — ${what} then work only on pair ${toPair}; pair ${pair} is free afterwards.`;
+  rows: ReturnType<typeof leadTable>;
 }
 
 function partSteps(ctx: PartContext, changes: LeadChange[], firstStep: number): SheetStep[] {
   return changes.map((change, i) => {
     const row = ctx.rows.find((r) => r.pair === change.pair);
-    const colour = pairColour(change.pair);
-    const base = { step: firstStep + i, pair: change.pair, colour, purpose: row?.purpose ?? '' };
+    const { leads, action, cost } = leadChangeWork(ctx.plan, ctx.id, change)!;
+    const base = {
+      step: firstStep + i,
+      pair: change.pair,
+      colour: pairColour(change.pair),
+      purpose: row?.purpose ?? '',
+    };
     if (change.kind === 'move') {
-      const leads = leadsOf(ctx, change.pair, CONDUCTORS);
       return {
         ...base,
         kind: 'move',
         toPair: change.toPair,
         toColour: pairColour(change.toPair),
         leads,
-        action: moveAction(change.pair, change.toPair, leads),
-        cost: moveCost(ctx, row, change.pair, change.toPair),
+        action,
+        cost,
       };
     }
-    const conductor = change.conductor;
-    const both = conductor === 'both';
-    const leads = leadsOf(ctx, change.pair, conductor === 'both' ? CONDUCTORS : [conductor]);
-    return {
-      ...base,
-      kind: 'lift',
-      leads,
-      action: liftAction(ctx, change.pair, leads, both),
-      cost: liftCost(ctx, row, leads),
-    };
+    return { ...base, kind: 'lift', leads, action, cost };
   });
 }
 
@@ -239,20 +140,13 @@ function collectParts(plan: Plan): SheetPart[] {
     ...plan.addOns.map((a) => ({
       doc: a,
       kind: 'add-on' as const,
-      station: `Serves ${plan.sets.find((s) => s.id === a.serves)?.name ?? a.serves}`,
+      station: `Serves ${servedName(plan, a)}`,
     })),
   ];
   for (const { doc, kind, station } of entries) {
     if (!doc.leadChanges.length) continue;
     const template = getTemplate(doc.template);
-    const ctx: PartContext = {
-      plan,
-      id: doc.id,
-      kind,
-      name: doc.name,
-      leads: template?.leads ?? [],
-      rows: leadTable(plan, doc.id),
-    };
+    const ctx: PartContext = { plan, id: doc.id, rows: leadTable(plan, doc.id) };
     const steps = partSteps(ctx, doc.leadChanges, step);
     step += steps.length;
     parts.push({
@@ -265,21 +159,6 @@ function collectParts(plan: Plan): SheetPart[] {
     });
   }
   return parts;
-}
-
-const LEAD_WORDS: Record<Exclude<KsuLead['kind'], 'buzzer'>, string> = {
-  'line-talk': 'talk pair (T, R)',
-  'line-a': 'A-lead pair (A, A1)',
-  'line-lamp': 'lamp pair (L, LG)',
-  'line-a-lamp': 'A-lead and lamp lead (A, L)',
-};
-
-export function describeKsuLead(plan: Plan, lead: KsuLead): string {
-  if (lead.kind === 'buzzer') {
-    const st = plan.ksu.stations.find((s) => s.id === lead.station);
-    return `buzzer output of intercom station ${st?.code ?? lead.station}`;
-  }
-  return `line ${lead.line} ${LEAD_WORDS[lead.kind]}`;
 }
 
 /** Cross-connect entries of the plan that differ from the standard station plan, pair by pair of each port. */
@@ -310,8 +189,8 @@ function crossConnectRows(plan: Plan, firstStep: number): SheetCrossConnectRow[]
     const drop = was.filter((l) => !now.includes(l));
     const where = `port ${port}, ${pairText(pair)}`;
     const parts = [
-      ...(drop.length ? [`take the ${joinWords(drop)} off ${where}`] : []),
-      ...(add.length ? [`connect the ${joinWords(add)} to ${where}`] : []),
+      ...(drop.length ? [`take the ${listWords(drop)} off ${where}`] : []),
+      ...(add.length ? [`connect the ${listWords(add)} to ${where}`] : []),
     ];
     const action = parts.join('; then ');
     rows.push({
@@ -336,7 +215,7 @@ function handChecks(plan: Plan): SheetCheck[] {
       if (!lines.length) continue;
       checks.push({
         subject: set.name,
-        text: `On line ${joinWords(lines.map(String))}, one line at a time: lift the handset, hear only that line, hold it, take it back, hang up and see its lamp go dark.`,
+        text: `On line ${listWords(lines.map(String))}, one line at a time: lift the handset, hear only that line, hold it, take it back, hang up and see its lamp go dark.`,
       });
     }
   }
@@ -346,13 +225,13 @@ function handChecks(plan: Plan): SheetCheck[] {
       checks.push({
         subject: `Intercom station ${st.code}`,
         text: assigned.length
-          ? `Dial ${st.code} on the intercom: ${joinWords(assigned)} buzzes, no other set does.`
+          ? `Dial ${st.code} on the intercom: ${listWords(assigned)} buzzes, no other set does.`
           : `Dial ${st.code} on the intercom: no set is assigned, so note which set, if any, buzzes.`,
       });
     }
   }
   for (const id of plan.required.handsFreeSets) {
-    const set = plan.sets.find((s) => s.id === id);
+    const set = findSet(plan, id);
     if (!set) continue;
     checks.push({
       subject: set.name,

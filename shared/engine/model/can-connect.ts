@@ -1,5 +1,5 @@
 /** Whether a cable may join two ports on the canvas, with the reason in plain words when not. */
-import type { Plan, PortRef } from './plan.schema';
+import type { Plan, PortRef } from '../document/plan.schema';
 import { portsOf } from './validate-plan';
 
 export type CanConnectResult = { ok: true } | { ok: false; reason: string };

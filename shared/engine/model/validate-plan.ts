@@ -2,30 +2,14 @@
  * Plan validation: the zod schema, then the cross-references a schema cannot see (templates, parts, ports,
  * stations, lines). Every issue carries the exact path of the offending value, e.g. "cables[0].to.port".
  */
-import type { z } from 'zod';
+import { zodIssues, type Issue } from '../document/issues';
 import { getTemplate } from '../templates/part-templates';
 import type { PartTemplate } from '../templates/template.types';
-import { PlanSchema, type Plan, type PortRef } from './plan.schema';
+import { PlanSchema, type Plan, type PortRef } from '../document/plan.schema';
 
-export interface PlanIssue {
-  path: string;
-  message: string;
-}
+export type PlanIssue = Issue;
 
 export type ValidatePlanResult = { ok: true; plan: Plan } | { ok: false; issues: PlanIssue[] };
-
-export function formatPath(path: readonly PropertyKey[]): string {
-  let out = '';
-  for (const seg of path) {
-    if (typeof seg === 'number') out += `[${seg}]`;
-    else out += out ? `.${String(seg)}` : String(seg);
-  }
-  return out;
-}
-
-function zodIssues(error: z.ZodError): PlanIssue[] {
-  return error.issues.map((i) => ({ path: formatPath(i.path), message: i.message }));
-}
 
 export interface PortInfo {
   part: string;
