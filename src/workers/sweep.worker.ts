@@ -4,7 +4,12 @@
  * Cancelling is done by the page terminating this worker; progress is throttled to a few per second.
  */
 import { cureOptimal, sweep } from '@shared/engine';
+import highsWasmUrl from 'highs/runtime?url';
 import type { SweepReply, SweepRequest } from './sweep-protocol';
+
+/** The solver's WebAssembly file is a build asset with a hashed name: tell the loader where it is. */
+const loadSolver = () =>
+  import('highs').then((m) => m.default({ locateFile: (file: string) => (file.endsWith('.wasm') ? highsWasmUrl : file) }));
 
 const PROGRESS_EVERY_MS = 80;
 
@@ -24,7 +29,7 @@ self.addEventListener('message', async (event: MessageEvent<SweepRequest>) => {
       const result = sweep(request.plan, { onProgress, limit: request.limit });
       post({ type: 'sweep-done', id: request.id, result });
     } else {
-      const result = await cureOptimal(request.plan);
+      const result = await cureOptimal(request.plan, { loadSolver });
       post({ type: 'cure-done', id: request.id, result });
     }
   } catch (err) {
