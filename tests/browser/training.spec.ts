@@ -111,7 +111,7 @@ describe.skipIf(!chromiumPath)('training: classes, a fault hunt, the gradebook a
     await page.locator('.n-tabs-tab', { hasText: 'Assignments' }).click();
     await choose(page, page.getByLabel('What to assign'), 'The lamp that never lights');
     await page.getByRole('button', { name: 'Assign', exact: true }).click();
-    await page.getByText('The lamp that never lights').last().waitFor();
+    await page.getByTestId('assignments').getByText('The lamp that never lights').waitFor();
     await screenshot(page, 'training-class-desk');
     expect(errors).toEqual([]);
   });
