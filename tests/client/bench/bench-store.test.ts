@@ -5,7 +5,8 @@ describe('bench store history', () => {
   it('undoes and redoes each edit in order, with its label', () => {
     const store = benchWith();
     const original = store.plan;
-    const id = store.addSet('ten-key', { x: 100, y: 100 });
+    const id = store.addSet('ten-key', { x: 100, y: 100 }) ?? 'refused';
+    expect(id).toBe('set-1');
     store.renamePart(id, 'Workshop');
     expect(store.plan?.sets).toHaveLength(3);
     expect(store.undoLabel).toBe('Rename Set 3 to Workshop');
