@@ -111,13 +111,13 @@ describe.skipIf(!chromiumPath)(
       const link = linkFrom(smtp, member.email, '/reset-password')!;
       const fresh = 'bridged-tip-ring-lamp-2026';
       await page.goto(link);
-      await page.getByLabel('New password').fill(fresh);
+      await page.getByLabel('New password', { exact: true }).fill(fresh);
       await page.getByRole('button', { name: 'Save new password' }).click();
       await page.getByTestId('reset-done').waitFor();
 
       // Single use: the same link is refused the second time.
       await page.goto(link);
-      await page.getByLabel('New password').fill('another-pair-of-leads-9');
+      await page.getByLabel('New password', { exact: true }).fill('another-pair-of-leads-9');
       await page.getByRole('button', { name: 'Save new password' }).click();
       await page.getByTestId('form-error').waitFor();
 
