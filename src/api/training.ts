@@ -29,7 +29,11 @@ import { request } from './client';
 
 const base = '/api/training';
 const e = encodeURIComponent;
-const CheckSchema = z.object({ ok: z.boolean(), problems: z.array(z.string()), symptoms: z.array(z.string()) });
+const CheckSchema = z.object({
+  ok: z.boolean(),
+  problems: z.array(z.string()),
+  symptoms: z.array(z.string()),
+});
 
 export const trainingApi = {
   classes: () => request('GET', `${base}/classes`, ClassListSchema).then((r) => r.items),
@@ -59,13 +63,15 @@ export const trainingApi = {
   myProgress: () => request('GET', `${base}/my/progress`, ProgressSchema).then((r) => r.items),
 
   library: () => request('GET', `${base}/library`, LibraryListSchema).then((r) => r.items),
-  copyFromLibrary: (slug: string) => request('POST', `${base}/puzzles/from-library`, PuzzleRecordSchema, { slug }),
+  copyFromLibrary: (slug: string) =>
+    request('POST', `${base}/puzzles/from-library`, PuzzleRecordSchema, { slug }),
   puzzles: () => request('GET', `${base}/puzzles`, PuzzleListSchema).then((r) => r.items),
   checkPuzzle: (spec: PuzzleSpecInput) => request('POST', `${base}/puzzles/check`, CheckSchema, { spec }),
   createPuzzle: (spec: PuzzleSpecInput) => request('POST', `${base}/puzzles`, PuzzleRecordSchema, { spec }),
   removePuzzle: (id: string) => request('DELETE', `${base}/puzzles/${e(id)}`, null),
 
-  startRun: (assignmentId: string) => request('POST', `${base}/assignments/${e(assignmentId)}/run`, RunViewSchema),
+  startRun: (assignmentId: string) =>
+    request('POST', `${base}/assignments/${e(assignmentId)}/run`, RunViewSchema),
   act: (runId: string, action: SimAction) =>
     request('POST', `${base}/runs/${e(runId)}/actions`, RunViewSchema, { action }),
   resetRun: (runId: string) => request('POST', `${base}/runs/${e(runId)}/reset`, RunViewSchema),
@@ -73,7 +79,8 @@ export const trainingApi = {
     request('POST', `${base}/runs/${e(runId)}/submit`, SubmissionResultSchema, submission),
   explanation: (runId: string) => request('GET', `${base}/runs/${e(runId)}/explanation`, ExplanationSchema),
 
-  demonstrations: () => request('GET', `${base}/demonstrations`, DemonstrationListSchema).then((r) => r.items),
+  demonstrations: () =>
+    request('GET', `${base}/demonstrations`, DemonstrationListSchema).then((r) => r.items),
   demonstration: (id: string) => request('GET', `${base}/demonstrations/${e(id)}`, DemonstrationRecordSchema),
   assignedDemonstration: (assignmentId: string) =>
     request('GET', `${base}/assignments/${e(assignmentId)}/demonstration`, DemonstrationRecordSchema),

@@ -6,8 +6,9 @@ import { useAfterSignIn } from './useAfterSignIn';
 /**
  * The sign-in and sign-up pages: run the session call, keep its pending state and failure for the
  * form, go on to the right page once signed in, and carry `?next=` over to the other page's link.
+ * An act that answers null (a second step is owed) stays on the page.
  */
-export function useAuthSubmit<V>(act: (values: V) => Promise<User>, otherPath: string) {
+export function useAuthSubmit<V>(act: (values: V) => Promise<User | null>, otherPath: string) {
   const route = useRoute();
   const goOn = useAfterSignIn();
 
@@ -22,7 +23,8 @@ export function useAuthSubmit<V>(act: (values: V) => Promise<User>, otherPath: s
     pending.value = true;
     error.value = null;
     try {
-      await goOn(await act(values));
+      const user = await act(values);
+      if (user) await goOn(user);
     } catch (caught) {
       error.value = caught;
     } finally {

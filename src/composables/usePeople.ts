@@ -1,9 +1,13 @@
-/** One page of accounts for the People table: query state, loading, error and role changes. */
-import { reactive, ref, shallowRef } from 'vue';
-import type { Role, User, UserListQuery } from '@shared/schemas';
+/** One page of accounts for the People table, and every admin action on them (each refreshes list and audit log). */
+import { computed, reactive } from 'vue';
+import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/vue-query';
+import { refDebounced } from '@vueuse/core';
+import type { Invite, Role, UserListQuery } from '@shared/schemas';
 import { usersApi } from '@/api/users';
 
 export type PeopleSort = UserListQuery['sort'];
+
+export const ADMIN_KEY = ['admin'] as const;
 
 export function usePeople() {
   const query = reactive({
@@ -14,41 +18,54 @@ export function usePeople() {
     page: 1,
     pageSize: 20,
   });
-  const rows = shallowRef<User[]>([]);
-  const total = ref(0);
-  const loading = ref(false);
-  const error = shallowRef<unknown>(null);
-  let latest = 0;
+  const search = refDebounced(
+    computed(() => query.search.trim()),
+    300,
+  );
+  const params = computed(() => ({
+    search: search.value || undefined,
+    role: query.role ?? undefined,
+    sort: query.sort,
+    order: query.order,
+    page: query.page,
+    pageSize: query.pageSize,
+  }));
+  const list = useQuery({
+    queryKey: [...ADMIN_KEY, 'users', params] as const,
+    queryFn: () => usersApi.list(params.value),
+    placeholderData: keepPreviousData,
+  });
 
-  async function load(): Promise<void> {
-    const ticket = ++latest;
-    loading.value = true;
-    error.value = null;
-    try {
-      const answer = await usersApi.list({
-        search: query.search.trim() || undefined,
-        role: query.role ?? undefined,
-        sort: query.sort,
-        order: query.order,
-        page: query.page,
-        pageSize: query.pageSize,
-      });
-      // A slower, older answer must not overwrite a newer one.
-      if (ticket !== latest) return;
-      rows.value = answer.items;
-      total.value = answer.total;
-    } catch (caught) {
-      if (ticket === latest) error.value = caught;
-    } finally {
-      if (ticket === latest) loading.value = false;
-    }
-  }
+  const queryClient = useQueryClient();
+  const refresh = () => queryClient.invalidateQueries({ queryKey: ADMIN_KEY });
+  const changeRole = useMutation({
+    mutationFn: ({ id, role }: { id: string; role: Role }) => usersApi.changeRole(id, role),
+    onSuccess: refresh,
+  });
+  const setDisabled = useMutation({
+    mutationFn: ({ id, disabled }: { id: string; disabled: boolean }) => usersApi.setDisabled(id, disabled),
+    onSuccess: refresh,
+  });
+  const remove = useMutation({ mutationFn: usersApi.remove, onSuccess: refresh });
+  const sendReset = useMutation({ mutationFn: usersApi.sendReset, onSuccess: refresh });
+  const invite = useMutation({ mutationFn: (input: Invite) => usersApi.invite(input), onSuccess: refresh });
 
-  async function changeRole(id: string, role: Role): Promise<User> {
-    const user = await usersApi.changeRole(id, role);
-    rows.value = rows.value.map((row) => (row.id === id ? user : row));
-    return user;
-  }
+  return {
+    query,
+    rows: computed(() => list.data.value?.items ?? []),
+    total: computed(() => list.data.value?.total ?? 0),
+    loading: list.isFetching,
+    error: list.error,
+    load: () => list.refetch(),
+    changeRole: changeRole.mutateAsync,
+    setDisabled: setDisabled.mutateAsync,
+    remove: remove.mutateAsync,
+    sendReset: sendReset.mutateAsync,
+    invite: invite.mutateAsync,
+    inviting: invite.isPending,
+  };
+}
 
-  return { query, rows, total, loading, error, load, changeRole };
+export function useAuditLog() {
+  return useQuery({ queryKey: [...ADMIN_KEY, 'audit'], queryFn: usersApi.audit });
 }

@@ -42,6 +42,24 @@ export const routes: RouteRecordRaw[] = [
     meta: { public: true, guestOnly: true, title: 'Create an account' },
   },
   {
+    path: '/forgot-password',
+    name: 'forgot-password',
+    component: () => import('@/pages/password/ForgotPasswordPage.vue'),
+    meta: { public: true, title: 'Forgot password' },
+  },
+  {
+    path: '/reset-password',
+    name: 'reset-password',
+    component: () => import('@/pages/password/ResetPasswordPage.vue'),
+    meta: { public: true, title: 'Choose a new password' },
+  },
+  {
+    path: '/verify-email',
+    name: 'verify-email',
+    component: () => import('@/pages/verify-email/index.vue'),
+    meta: { public: true, title: 'Confirm e-mail address' },
+  },
+  {
     path: '/plans',
     name: 'plans',
     component: () => import('@/pages/plans/index.vue'),

@@ -1,7 +1,7 @@
 /** Who is signed in. Loads the session once; components decide how errors look. */
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
-import type { Role, SignIn, SignUp, User } from '@shared/schemas';
+import type { Role, SessionInfo, SignIn, SignUp, TotpCode, User } from '@shared/schemas';
 import { authApi } from '@/api/auth';
 
 export const useSessionStore = defineStore('session', () => {
@@ -28,18 +28,27 @@ export const useSessionStore = defineStore('session', () => {
     return pending;
   }
 
-  async function signIn(input: SignIn): Promise<User> {
-    const found = await authApi.signIn(input);
-    user.value = found;
+  /** The answer as sent: no user yet while `secondFactorRequired` (finish with `secondFactor`). */
+  async function signIn(input: SignIn): Promise<SessionInfo> {
+    const info = await authApi.signIn(input);
+    user.value = info.user;
     loaded.value = true;
-    return found;
+    return info;
   }
 
-  async function signUp(input: SignUp): Promise<User> {
-    const created = await authApi.signUp(input);
-    user.value = created;
+  async function secondFactor(input: TotpCode): Promise<User | null> {
+    const info = await authApi.secondFactor(input);
+    user.value = info.user;
     loaded.value = true;
-    return created;
+    return info.user;
+  }
+
+  /** The new user, or null when a verification mail went out instead (no session yet). */
+  async function signUp(input: SignUp): Promise<User | null> {
+    const info = await authApi.signUp(input);
+    user.value = info.user;
+    loaded.value = true;
+    return info.user;
   }
 
   async function signOut(): Promise<void> {
@@ -61,5 +70,5 @@ export const useSessionStore = defineStore('session', () => {
     loaded.value = true;
   }
 
-  return { user, loaded, signedIn, role, load, signIn, signUp, signOut, hasRole, setUser };
+  return { user, loaded, signedIn, role, load, signIn, secondFactor, signUp, signOut, hasRole, setUser };
 });

@@ -61,6 +61,7 @@ export function buildClient(outDir: string): void {
 export async function startServer(
   clientDir: string,
   databaseFile: string,
+  env: Record<string, string> = {},
 ): Promise<{ baseUrl: string; child: ChildProcess }> {
   const port = await freePort();
   const baseUrl = `http://localhost:${port}`;
@@ -74,6 +75,7 @@ export async function startServer(
       LOG_LEVEL: 'warn',
       RATE_LIMIT_MAX: '1000',
       NODE_ENV: 'test',
+      ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
     detached: true,

@@ -2,6 +2,7 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { defineComponent, h } from 'vue';
 import { flushPromises, mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
+import { QueryClient, VueQueryPlugin } from '@tanstack/vue-query';
 import { createMemoryHistory } from 'vue-router';
 import { NDialogProvider, NMessageProvider } from 'naive-ui';
 import type { Role, User } from '@shared/schemas';
@@ -32,7 +33,8 @@ async function mountLayout(user: User | null, path = '/') {
   const Shell = defineComponent(
     () => () => h(NDialogProvider, () => h(NMessageProvider, () => h(AppLayout))),
   );
-  const wrapper = mount(Shell, { global: { plugins: [pinia, router] } });
+  const queryClient = new QueryClient({ defaultOptions: { queries: { retry: false } } });
+  const wrapper = mount(Shell, { global: { plugins: [pinia, router, [VueQueryPlugin, { queryClient }]] } });
   await flushPromises();
   return { wrapper, session: useSessionStore(pinia) };
 }

@@ -59,4 +59,35 @@ describe('useSessionStore', () => {
     await expect(session.signOut()).rejects.toMatchObject({ code: 'NETWORK' });
     expect(session.user).toBeNull();
   });
+
+  it('starts no session when sign-up answers 202 with a verification mail sent', async () => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Response.json({ user: null, verificationSent: true }, { status: 202 })),
+    );
+    const session = useSessionStore();
+
+    await expect(
+      session.signUp({ email: 'wren@example.org', displayName: 'Wren', password: 'copper-pair-lamp-relay' }),
+    ).resolves.toBeNull();
+    expect(session.signedIn).toBe(false);
+  });
+
+  it('stays signed out after the password until the second-factor code is accepted', async () => {
+    const fetchMock = vi.fn(async () => Response.json({ user: null, secondFactorRequired: true }));
+    vi.stubGlobal('fetch', fetchMock);
+    const session = useSessionStore();
+
+    const info = await session.signIn({ email: 'wren@example.org', password: 'right password' });
+    expect(info.secondFactorRequired).toBe(true);
+    expect(session.signedIn).toBe(false);
+
+    fetchMock.mockImplementation(async () => Response.json({ user: wren }));
+    await expect(session.secondFactor({ code: '123456' })).resolves.toEqual(wren);
+    expect(fetchMock).toHaveBeenLastCalledWith(
+      '/api/auth/second-factor',
+      expect.objectContaining({ method: 'POST' }),
+    );
+    expect(session.signedIn).toBe(true);
+  });
 });
