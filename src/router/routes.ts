@@ -80,6 +80,13 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Work sheet' },
   },
   {
+    path: '/shared/:token',
+    name: 'shared-link',
+    component: () => import('@/pages/plans/SharedLinkPage.vue'),
+    props: true,
+    meta: { title: 'Shared plan' },
+  },
+  {
     path: '/drills',
     children: [
       { path: '', name: 'drills', component: () => import('@/pages/drills/index.vue'), meta: { title: 'Drills', roles: DRILL_ROLES } },

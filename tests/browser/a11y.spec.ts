@@ -53,13 +53,13 @@ for (const scheme of ['light', 'dark'] as const) {
       const { page } = session;
       await signUp(page, baseUrl, newAccount(`a11y-${scheme}`));
       await waitForPath(page, '/plans');
-      await page.getByRole('list', { name: 'Your plans' }).getByRole('listitem').first().waitFor();
+      await page.getByTestId('plan-row').first().waitFor();
       expect(await seriousViolations(page)).toEqual([]);
     });
 
     it('the Bench with the demo plan open', async () => {
       const { page } = session;
-      await page.getByRole('list', { name: 'Your plans' }).getByRole('link').first().click();
+      await page.getByTestId('plan-row').getByRole('link').first().click();
       await page.waitForURL(/\/plans\/[^/]+$/);
       await page.getByRole('heading', { name: /^Fault list/ }).waitFor();
       await page.locator('[data-testid^="node-"]').first().waitFor();

@@ -108,9 +108,9 @@ describe.skipIf(!chromiumPath)('accounts and roles in the browser', () => {
     // New accounts are restorers (server/auth/auth.service.ts): Plans and Account only.
     expect(await navLabels(page)).toEqual(ROLE_EXPECTATIONS.restorer.nav);
     // Every new account starts with one copy of the demo installation.
-    const cards = page.getByRole('list', { name: 'Your plans' }).getByRole('listitem');
-    await cards.first().waitFor();
-    expect(await cards.count()).toBe(1);
+    const rows = page.getByTestId('plan-row');
+    await rows.first().waitFor();
+    expect(await rows.count()).toBe(1);
 
     await page.getByTestId('user-menu').click();
     await page.getByText('Restorer', { exact: true }).waitFor(); // role label, src/navigation/role-labels.ts
