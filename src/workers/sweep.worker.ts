@@ -14,8 +14,7 @@ const post = (reply: SweepReply) => (self as unknown as DedicatedWorkerGlobalSco
 
 /** The solver's WebAssembly is a bundled asset: tell the loader its URL instead of letting it guess. */
 let solver: Promise<Highs> | null = null;
-const loadSolver = () =>
-  (solver ??= import('highs').then((m) => m.default({ locateFile: () => highsWasm })));
+const loadSolver = () => (solver ??= import('highs').then((m) => m.default({ locateFile: () => highsWasm })));
 
 self.addEventListener('message', async (event: MessageEvent<SweepRequest>) => {
   const request = event.data;

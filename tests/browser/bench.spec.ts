@@ -233,7 +233,9 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
     // The remedy's own summary states the same count it lists.
     expect(await message.innerText()).toContain(`${cureCount} lead change`);
     // The solver ran in the worker (its WebAssembly loaded from the built client) and states its proof.
-    expect(await page.getByTestId('cure-proof').innerText()).toMatch(/^No cure with fewer than \d+ changes? exists/);
+    expect(await page.getByTestId('cure-proof').innerText()).toMatch(
+      /^No cure with fewer than \d+ changes? exists/,
+    );
     await screenshot(page, 'bench-5-remedy');
     expect(await leadChangesOnSets()).toBe(0);
 

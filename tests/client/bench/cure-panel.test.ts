@@ -56,7 +56,9 @@ describe('Cure panel', () => {
     ]);
     const untouched = t.wrapper.get('[data-testid="cure-cost-untouched-workroom"]').text();
     // Without "untouched" the cure lifts in Workroom: the 4-change cure above.
-    expect(untouched).toBe('Leaving Workroom untouched stands in the way: without it, a cure of 4 changes exists.');
+    expect(untouched).toBe(
+      'Leaving Workroom untouched stands in the way: without it, a cure of 4 changes exists.',
+    );
     const blocking = t.wrapper.get('[data-testid="cure-blocking"]').text();
     expect(blocking).toContain('Cannot be cleared');
     expect(blocking).toContain(`Why: ${result.blocking!.reason}.`);
