@@ -70,7 +70,7 @@ describe('API edges', () => {
     const csp = (await request(server.app).get('/api/health')).headers['content-security-policy'];
     // OWASP Content Security Policy Cheat Sheet: default-src 'self', no inline scripts, no framing
     expect(csp).toContain("default-src 'self'");
-    expect(csp).toContain("script-src 'self';");
+    expect(csp).toContain("script-src 'self' 'wasm-unsafe-eval';");
     expect(csp).toContain("frame-ancestors 'none'");
     expect(csp).not.toMatch(/script-src[^;]*unsafe-inline/);
   });
