@@ -85,10 +85,9 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
       contentSecurityPolicy: {
         directives: {
           defaultSrc: ["'self'"],
-          // The cure's integer-program solver is WebAssembly: compiling it needs 'wasm-unsafe-eval' (not 'unsafe-eval').
           scriptSrc: ["'self'", "'wasm-unsafe-eval'"],
           // naive-ui renders its component styles at run time (CSS-in-JS into <style> tags), which
-          // needs inline styles; scripts stay 'self' only.
+          // needs inline styles; scripts stay 'self' (plus compiling the cure solver's WebAssembly).
           styleSrc: ["'self'", "'unsafe-inline'"],
           fontSrc: ["'self'"],
           imgSrc: ["'self'", 'data:'],

@@ -3,17 +3,18 @@
  * Runs the engine's sweep and cure off the main thread so the canvas stays responsive.
  * Cancelling is done by the page terminating this worker; progress is throttled to a few per second.
  */
+import type { Highs } from 'highs';
+import highsWasm from 'highs/runtime?url';
 import { cureOptimal, sweep } from '@shared/engine';
-import highsWasmUrl from 'highs/runtime?url';
 import type { SweepReply, SweepRequest } from './sweep-protocol';
-
-/** The solver's WebAssembly file is a build asset with a hashed name: tell the loader where it is. */
-const loadSolver = () =>
-  import('highs').then((m) => m.default({ locateFile: (file: string) => (file.endsWith('.wasm') ? highsWasmUrl : file) }));
 
 const PROGRESS_EVERY_MS = 80;
 
 const post = (reply: SweepReply) => (self as unknown as DedicatedWorkerGlobalScope).postMessage(reply);
+
+/** The solver's WebAssembly is a bundled asset: tell the loader its URL instead of letting it guess. */
+let solver: Promise<Highs> | null = null;
+const loadSolver = () => (solver ??= import('highs').then((m) => m.default({ locateFile: () => highsWasm })));
 
 self.addEventListener('message', async (event: MessageEvent<SweepRequest>) => {
   const request = event.data;
@@ -29,10 +30,11 @@ self.addEventListener('message', async (event: MessageEvent<SweepRequest>) => {
       const result = sweep(request.plan, { onProgress, limit: request.limit });
       post({ type: 'sweep-done', id: request.id, result });
     } else {
-      const result = await cureOptimal(request.plan, { loadSolver });
+      const result = await cureOptimal(request.plan, { ...request.choices, loadSolver });
       post({ type: 'cure-done', id: request.id, result });
     }
   } catch (err) {
+    solver = null;
     post({ type: 'failed', id: request.id, message: err instanceof Error ? err.message : String(err) });
   }
 });

@@ -3,8 +3,8 @@
  * sweep never yields to read a message); the next run starts a fresh one.
  */
 import { onBeforeUnmount, ref, shallowRef } from 'vue';
-import type { CureResult, Plan, SweepResult } from '@shared/engine';
-import type { SweepReply, SweepRequest } from '@/workers/sweep-protocol';
+import type { OptimalCureResult, Plan, SweepResult } from '@shared/engine';
+import type { CureChoices, SweepReply, SweepRequest } from '@/workers/sweep-protocol';
 
 export type SweepJob = 'sweep' | 'cure';
 
@@ -12,7 +12,7 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
   const running = ref<SweepJob | null>(null);
   const progress = ref<{ done: number; total: number } | null>(null);
   const sweepResult = shallowRef<SweepResult | null>(null);
-  const cureResult = shallowRef<CureResult | null>(null);
+  const cureResult = shallowRef<OptimalCureResult | null>(null);
   /** The document the last result was computed for, so the panel can tell when it is out of date. */
   const resultPlan = shallowRef<Plan | null>(null);
   const cureBase = shallowRef<Plan | null>(null);
@@ -45,7 +45,7 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
     running.value = null;
   }
 
-  function start(job: SweepJob, plan: Plan) {
+  function start(job: SweepJob, plan: Plan, choices: CureChoices = { keepAddOn: [], untouched: [] }) {
     if (running.value) cancel();
     error.value = null;
     progress.value = null;
@@ -58,7 +58,7 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
     const request: SweepRequest =
       job === 'sweep'
         ? { type: 'sweep', id: currentId, plan: payload }
-        : { type: 'cure', id: currentId, plan: payload };
+        : { type: 'cure', id: currentId, plan: payload, choices: { ...choices } };
     try {
       ensureWorker().postMessage(request);
     } catch (err) {
@@ -95,7 +95,7 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
     cureBase,
     error,
     sweep: (plan: Plan) => start('sweep', plan),
-    cure: (plan: Plan) => start('cure', plan),
+    cure: (plan: Plan, choices?: CureChoices) => start('cure', plan, choices),
     cancel,
     clearCure,
   };

@@ -1,5 +1,5 @@
 /** A small invented installation for Bench component tests: one KSU, one bridging adapter, two six-key sets. */
-import type { Component } from 'vue';
+import type { Component, ComponentOptions } from 'vue';
 import { createPinia, setActivePinia } from 'pinia';
 import { mount } from '@vue/test-utils';
 import { Position } from '@vue-flow/core';
@@ -65,6 +65,7 @@ export function mountNode(
   partId: string,
   type: string,
   dimensions: { width: number; height: number },
+  mixins: ComponentOptions[] = [],
 ) {
   return mount(component, {
     props: {
@@ -83,6 +84,6 @@ export function mountNode(
       sourcePosition: Position.Right,
       dragHandle: undefined,
     } as never,
-    global: { stubs: { Handle: true } },
+    global: { stubs: { Handle: true }, mixins },
   });
 }

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import type { ComponentOptions } from 'vue';
 import KeySetNode from '@/components/bench/nodes/KeySetNode.vue';
 import { benchWith, mountNode } from './bench-fixture';
 
@@ -54,5 +55,29 @@ describe('KeySetNode', () => {
     expect(key.find('[data-cadence="steady"]').exists()).toBe(true);
     expect(wrapper.get('[data-testid="lamp-back-1"]').text()).toBe('steady');
     expect(wrapper.get('[data-testid="key-back-2"]').attributes('aria-label')).toBe('Line 2 key, lamp dark');
+  });
+
+  it('does not re-render when only other sets change', async () => {
+    const store = benchWith();
+    // Every component of the node that patches again (frame, lamps, handset switch) counts.
+    let renders = 0;
+    const countRenders: ComponentOptions = {
+      updated() {
+        renders++;
+      },
+    };
+    const wrapper = mountNode(KeySetNode, 'back', 'key-set', { width: 240, height: 200 }, [countRenders]);
+    const evaluation = store.evaluation;
+    // A line key latched on another set that stays on hook seizes nothing: the back set sees no change
+    // (common practice, no published source), though the store holds a new evaluation.
+    store.operate({ kind: 'press-key', set: 'front', key: 2 });
+    await wrapper.vm.$nextTick();
+    expect(store.evaluation).not.toBe(evaluation);
+    expect(renders).toBe(0);
+    // Lifting on that line lights its lamp on the back set too: then it renders.
+    store.operate({ kind: 'lift-handset', set: 'front' });
+    await wrapper.vm.$nextTick();
+    expect(renders).toBeGreaterThan(0);
+    expect(wrapper.get('[data-testid="lamp-back-2"]').text()).toBe('steady');
   });
 });

@@ -1,52 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { defineComponent, h, nextTick } from 'vue';
-import { mount } from '@vue/test-utils';
-import { cure, PlanSchema, sweep } from '@shared/engine';
+import { nextTick } from 'vue';
+import { PlanSchema } from '@shared/engine';
 import demo from '@shared/engine/examples/demo-plan.json';
 import SweepPanel from '@/components/bench/SweepPanel.vue';
-import { useSweepWorker } from '@/composables/bench/use-sweep-worker';
-import type { SweepReply, SweepRequest } from '@/workers/sweep-protocol';
 import { benchWith } from './bench-fixture';
+import { untilIdle, workerHost } from './worker-host';
 
-/** Stands in for the Web Worker: same messages, the real engine, answered on the next tick. */
-class InlineWorker extends EventTarget {
-  terminated = false;
-  postMessage(request: SweepRequest) {
-    setTimeout(() => {
-      if (this.terminated) return;
-      const reply: SweepReply =
-        request.type === 'sweep'
-          ? { type: 'sweep-done', id: request.id, result: sweep(request.plan) }
-          : { type: 'cure-done', id: request.id, result: cure(request.plan) };
-      this.dispatchEvent(new MessageEvent('message', { data: reply }));
-    }, 0);
-  }
-  terminate() {
-    this.terminated = true;
-  }
-}
-
-function host() {
-  let worker!: ReturnType<typeof useSweepWorker>;
-  const made: InlineWorker[] = [];
-  const Host = defineComponent({
-    setup() {
-      worker = useSweepWorker(() => {
-        const w = new InlineWorker();
-        made.push(w);
-        return w as unknown as Worker;
-      });
-      return () => h(SweepPanel, { worker });
-    },
-  });
-  return {
-    wrapper: mount(Host),
-    made,
-    get worker() {
-      return worker;
-    },
-  };
-}
+const host = () => workerHost(SweepPanel);
 
 const settle = () => new Promise((resolve) => setTimeout(resolve, 5));
 
@@ -106,4 +66,34 @@ describe('SweepPanel', () => {
     expect(t.worker.running.value).toBeNull();
     expect(t.worker.sweepResult.value).toBeNull();
   });
+
+  it('says plainly that a sweep of every state is complete', async () => {
+    benchWith(PlanSchema.parse(demo));
+    const t = host();
+    await t.wrapper.get('[data-testid="sweep-run"]').trigger('click');
+    await untilIdle(t.worker);
+    await nextTick();
+    // Two six-key sets, one with an add-on: 12 × 24 position combinations times a few dozen KSU events at most,
+    // far under the sound sweep's 4 000 000 (shared/engine/search/README.md, "Sweep"), so every state is visited.
+    expect(t.worker.sweepResult.value!.complete).toBe(true);
+    const text = t.wrapper.get('[data-testid="sweep-complete"]').text();
+    expect(text).toMatch(/^Complete: every reachable state was covered/);
+    expect(text).not.toContain('Not complete');
+  }, 30_000);
+
+  it('says when the sweep is not complete and why', async () => {
+    benchWith(PlanSchema.parse(demo));
+    const t = workerHost(SweepPanel, { limit: 50 });
+    await t.wrapper.get('[data-testid="sweep-run"]').trigger('click');
+    await untilIdle(t.worker);
+    await nextTick();
+    const result = t.worker.sweepResult.value!;
+    // 50 states is far fewer than the plan has (see above), so the sweep stops short.
+    expect(result.complete).toBe(false);
+    expect(result.statesVisited).toBeLessThanOrEqual(50);
+    const text = t.wrapper.get('[data-testid="sweep-complete"]').text();
+    expect(text).toContain('Not complete:');
+    expect(text).toContain(result.incompleteReason!);
+    expect(text).not.toMatch(/^Complete/);
+  }, 30_000);
 });
