@@ -41,10 +41,16 @@ describe.skipIf(!chromiumPath)('the plans library', () => {
 
   /** Opens the row's action menu and picks one entry. */
   async function act(name: string, action: string): Promise<void> {
+    // A menu closed a moment ago fades out for a while; wait until it has gone so only the new one is picked from.
+    await expect.poll(() => page.locator('.n-dropdown-menu:visible').count(), { timeout: 10_000 }).toBe(0);
     await row(name)
       .getByRole('button', { name: `Actions for ${name}` })
       .click();
-    await page.locator('.n-dropdown-option:visible').filter({ hasText: action }).click();
+    await page
+      .locator('.n-dropdown-option:visible')
+      .filter({ hasText: new RegExp(`^${action.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}$`) })
+      .last()
+      .click();
   }
 
   async function expectRows(count: number): Promise<void> {
