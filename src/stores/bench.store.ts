@@ -238,7 +238,7 @@ export const useBenchStore = defineStore('bench', () => {
   const setPortCount = (count: number) => run(edits.setPortCount(requirePlan(), count));
   const addStation = (code: string, label: string) => run(edits.addStation(requirePlan(), code, label));
   const removeStation = (stationId: string) => run(edits.removeStation(requirePlan(), stationId));
-  const applyRemedy = (result: CureResult) => run(edits.applyCure(requirePlan(), result));
+  const applyCure = (result: CureResult) => run(edits.applyCure(requirePlan(), result));
 
   return {
     planId,
@@ -292,6 +292,6 @@ export const useBenchStore = defineStore('bench', () => {
     setPortCount,
     addStation,
     removeStation,
-    applyRemedy,
+    applyCure,
   };
 });

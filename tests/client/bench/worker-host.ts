@@ -1,23 +1,23 @@
-/** Mounts a Bench panel over the sweep worker composable, with the real engine standing in for the Web Worker. */
+/** Mounts a Bench panel over the engine worker composable, with the real engine standing in for the Web Worker. */
 import { defineComponent, h, type Component } from 'vue';
 import { mount } from '@vue/test-utils';
 import { NMessageProvider } from 'naive-ui';
 import { cureOptimal, sweep } from '@shared/engine';
-import { useSweepWorker } from '@/composables/bench/use-sweep-worker';
-import type { SweepReply, SweepRequest } from '@/workers/sweep-protocol';
+import { useEngineWorker } from '@/composables/bench/use-engine-worker';
+import type { EngineReply, EngineRequest } from '@/workers/engine-protocol';
 
 /** Same messages as the worker, the real engine, answered on a later tick; `limit` caps a sweep's states. */
 export class InlineWorker extends EventTarget {
   terminated = false;
-  requests: SweepRequest[] = [];
+  requests: EngineRequest[] = [];
   constructor(private readonly limit?: number) {
     super();
   }
-  postMessage(request: SweepRequest) {
+  postMessage(request: EngineRequest) {
     this.requests.push(request);
     setTimeout(async () => {
       if (this.terminated) return;
-      const reply: SweepReply =
+      const reply: EngineReply =
         request.type === 'sweep'
           ? { type: 'sweep-done', id: request.id, result: sweep(request.plan, { limit: this.limit }) }
           : { type: 'cure-done', id: request.id, result: await cureOptimal(request.plan, request.choices) };
@@ -30,11 +30,11 @@ export class InlineWorker extends EventTarget {
 }
 
 export function workerHost(panel: Component, opts: { limit?: number } = {}) {
-  let worker!: ReturnType<typeof useSweepWorker>;
+  let worker!: ReturnType<typeof useEngineWorker>;
   const made: InlineWorker[] = [];
   const Host = defineComponent({
     setup() {
-      worker = useSweepWorker(() => {
+      worker = useEngineWorker(() => {
         const w = new InlineWorker(opts.limit);
         made.push(w);
         return w as unknown as Worker;
@@ -52,7 +52,7 @@ export function workerHost(panel: Component, opts: { limit?: number } = {}) {
 }
 
 /** Polls until the worker has answered (the cure loads its solver and sweeps several times). */
-export async function untilIdle(worker: ReturnType<typeof useSweepWorker>, ms = 25_000): Promise<void> {
+export async function untilIdle(worker: ReturnType<typeof useEngineWorker>, ms = 25_000): Promise<void> {
   const end = Date.now() + ms;
   while (worker.running.value && Date.now() < end) await new Promise((r) => setTimeout(r, 10));
 }

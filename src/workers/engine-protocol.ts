@@ -1,4 +1,4 @@
-/** Messages between the Bench and its sweep worker. */
+/** Messages between the Bench and its engine worker (sweeps and cures). */
 import type { OptimalCureResult, Plan, SweepResult } from '@shared/engine';
 
 /** The user's choices for a cure: sets whose hands-free add-on must keep working, sets not to be touched. */
@@ -7,11 +7,11 @@ export interface CureChoices {
   untouched: string[];
 }
 
-export type SweepRequest =
+export type EngineRequest =
   | { type: 'sweep'; id: number; plan: Plan; limit?: number }
   | { type: 'cure'; id: number; plan: Plan; choices: CureChoices };
 
-export type SweepReply =
+export type EngineReply =
   | { type: 'progress'; id: number; done: number; total: number }
   | { type: 'sweep-done'; id: number; result: SweepResult }
   | { type: 'cure-done'; id: number; result: OptimalCureResult }

@@ -1,7 +1,7 @@
 import { computed, ref } from 'vue';
 import { useRoute } from 'vue-router';
 import type { User } from '@shared/schemas';
-import { useAfterSignIn } from './useAfterSignIn';
+import { useAfterSignIn } from './use-after-sign-in';
 
 /**
  * The sign-in and sign-up pages: run the session call, keep its pending state and failure for the

@@ -6,17 +6,17 @@
 import type { Highs } from 'highs';
 import highsWasm from 'highs/runtime?url';
 import { cureOptimal, sweep } from '@shared/engine';
-import type { SweepReply, SweepRequest } from './sweep-protocol';
+import type { EngineReply, EngineRequest } from './engine-protocol';
 
 const PROGRESS_EVERY_MS = 80;
 
-const post = (reply: SweepReply) => (self as unknown as DedicatedWorkerGlobalScope).postMessage(reply);
+const post = (reply: EngineReply) => (self as unknown as DedicatedWorkerGlobalScope).postMessage(reply);
 
 /** The solver's WebAssembly is a bundled asset: tell the loader its URL instead of letting it guess. */
 let solver: Promise<Highs> | null = null;
 const loadSolver = () => (solver ??= import('highs').then((m) => m.default({ locateFile: () => highsWasm })));
 
-self.addEventListener('message', async (event: MessageEvent<SweepRequest>) => {
+self.addEventListener('message', async (event: MessageEvent<EngineRequest>) => {
   const request = event.data;
   let last = 0;
   const onProgress = (done: number, total: number) => {

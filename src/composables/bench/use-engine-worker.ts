@@ -4,12 +4,12 @@
  */
 import { onBeforeUnmount, ref, shallowRef } from 'vue';
 import type { OptimalCureResult, Plan, SweepResult } from '@shared/engine';
-import type { CureChoices, SweepReply, SweepRequest } from '@/workers/sweep-protocol';
+import type { CureChoices, EngineReply, EngineRequest } from '@/workers/engine-protocol';
 
-export type SweepJob = 'sweep' | 'cure';
+export type EngineJob = 'sweep' | 'cure';
 
-export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
-  const running = ref<SweepJob | null>(null);
+export function useEngineWorker(createWorker: () => Worker = defaultWorker) {
+  const running = ref<EngineJob | null>(null);
   const progress = ref<{ done: number; total: number } | null>(null);
   const sweepResult = shallowRef<SweepResult | null>(null);
   const cureResult = shallowRef<OptimalCureResult | null>(null);
@@ -25,15 +25,15 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
   function ensureWorker(): Worker {
     if (worker) return worker;
     worker = createWorker();
-    worker.addEventListener('message', (event: MessageEvent<SweepReply>) => onReply(event.data));
+    worker.addEventListener('message', (event: MessageEvent<EngineReply>) => onReply(event.data));
     worker.addEventListener('error', (event) => {
-      error.value = event.message || 'The sweep worker stopped unexpectedly.';
+      error.value = event.message || 'The engine worker stopped unexpectedly.';
       stop();
     });
     return worker;
   }
 
-  function onReply(reply: SweepReply) {
+  function onReply(reply: EngineReply) {
     if (reply.id !== currentId) return;
     if (reply.type === 'progress') {
       progress.value = { done: reply.done, total: reply.total };
@@ -45,7 +45,7 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
     running.value = null;
   }
 
-  function start(job: SweepJob, plan: Plan, choices: CureChoices = { keepAddOn: [], untouched: [] }) {
+  function start(job: EngineJob, plan: Plan, choices: CureChoices = { keepAddOn: [], untouched: [] }) {
     if (running.value) cancel();
     error.value = null;
     progress.value = null;
@@ -55,7 +55,7 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
     else cureBase.value = plan;
     // A plain copy: the document is a shallowRef of frozen-ish objects and must cross the worker boundary.
     const payload = JSON.parse(JSON.stringify(plan)) as Plan;
-    const request: SweepRequest =
+    const request: EngineRequest =
       job === 'sweep'
         ? { type: 'sweep', id: currentId, plan: payload }
         : { type: 'cure', id: currentId, plan: payload, choices: { ...choices } };
@@ -102,8 +102,8 @@ export function useSweepWorker(createWorker: () => Worker = defaultWorker) {
 }
 
 function defaultWorker(): Worker {
-  return new Worker(new URL('../../workers/sweep.worker.ts', import.meta.url), {
+  return new Worker(new URL('../../workers/engine.worker.ts', import.meta.url), {
     type: 'module',
-    name: 'sweep',
+    name: 'engine',
   });
 }
