@@ -4,7 +4,6 @@
  */
 import { Router } from 'express';
 import { z } from 'zod';
-import { PlanSchema } from '../../shared/engine/index';
 import { diffPlans } from '../../shared/plans/plan-diff';
 import {
   RestoreRevisionSchema,
@@ -15,6 +14,7 @@ import {
 } from '../../shared/schemas/plan-revisions.schema';
 import {
   PlanCreateSchema,
+  PlanDuplicateSchema,
   PlanListQuerySchema,
   PlanRenameSchema,
   PlanUpdateSchema,
@@ -30,7 +30,6 @@ import type { PlansRepo } from './plans.repo';
 import { viewerOf, type PlansService } from './plans.service';
 
 export const PlanIdParams = z.object({ id: z.string().min(1).max(64) });
-const DuplicateBody = z.object({ name: PlanSchema.shape.name.optional() });
 
 /** A file name made of the plan's name: letters, digits and dashes only. */
 const fileNameOf = (name: string) =>
@@ -109,7 +108,7 @@ export function plansRoutes(
 
   router.post('/:id/duplicate', async (req, res) => {
     const { id } = parseParams(PlanIdParams, req);
-    const { name } = parseBody(DuplicateBody, req);
+    const { name } = parseBody(PlanDuplicateSchema, req);
     const user = currentUser(res);
     const { row } = await service.visible(id, user);
     const original = checkPlanDocument(JSON.parse(row.document), maxSets);

@@ -47,6 +47,10 @@ export const PlanRenameSchema = z.object({
 });
 export type PlanRename = z.infer<typeof PlanRenameSchema>;
 
+/** A copy of a plan one may see, under an optional new name ("Copy of …" otherwise). */
+export const PlanDuplicateSchema = z.object({ name: PlanSchema.shape.name.optional() });
+export type PlanDuplicate = z.infer<typeof PlanDuplicateSchema>;
+
 export const PLAN_SORTS = ['name', 'setCount', 'faultCount', 'updatedAt', 'shared'] as const;
 export const PLAN_SCOPES = ['mine', 'shared', 'deleted'] as const;
 export const PLAN_PAGE_SIZES = [10, 20, 50] as const;

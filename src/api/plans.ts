@@ -11,7 +11,11 @@ import {
   PlanRevisionSchema,
   PlanShareListSchema,
   ShareCreatedSchema,
+  type PlanCreate,
+  type PlanDuplicate,
   type PlanListParams,
+  type PlanRename,
+  type PlanUpdate,
   type ShareCreate,
 } from '@shared/schemas';
 import { request, toQuery } from './client';
@@ -34,19 +38,21 @@ export const plansApi = {
       PlanListSchema,
     ),
   get: (id: string) => request('GET', planPath(id), PlanRecordSchema),
-  create: (document: Plan) => request('POST', '/api/plans', PlanRecordSchema, { document }),
+  // Bodies are typed with the request schemas the server parses them with (shared/schemas/plans.schema.ts).
+  create: (document: Plan) =>
+    request('POST', '/api/plans', PlanRecordSchema, { document } satisfies PlanCreate),
   /** `baseUpdatedAt` is the updatedAt this tab last saw; a newer copy on the server answers 409 CONFLICT. */
   update: (id: string, document: Plan, baseUpdatedAt: string) =>
-    request('PUT', planPath(id), PlanRecordSchema, { document, baseUpdatedAt }),
+    request('PUT', planPath(id), PlanRecordSchema, { document, baseUpdatedAt } satisfies PlanUpdate),
   /** Saves over whatever the server holds now: the user chose to keep this copy after a conflict. */
   overwrite: async (id: string, document: Plan) => {
     const latest = await plansApi.get(id);
     return plansApi.update(id, document, latest.updatedAt);
   },
   rename: (id: string, name: string, baseUpdatedAt: string) =>
-    request('PATCH', planPath(id), PlanRecordSchema, { name, baseUpdatedAt }),
+    request('PATCH', planPath(id), PlanRecordSchema, { name, baseUpdatedAt } satisfies PlanRename),
   duplicate: (id: string, name?: string) =>
-    request('POST', `${planPath(id)}/duplicate`, PlanRecordSchema, name ? { name } : {}),
+    request('POST', `${planPath(id)}/duplicate`, PlanRecordSchema, (name ? { name } : {}) satisfies PlanDuplicate),
   remove: (id: string) => request('DELETE', planPath(id), null),
   undelete: (id: string) => request('POST', `${planPath(id)}/undelete`, PlanRecordSchema),
   /** Address of the plan file download (the browser keeps the session cookie). */

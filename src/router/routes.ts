@@ -22,6 +22,12 @@ export const DRILL_ROLES: readonly Role[] = ['trainee', 'instructor', 'admin'];
 export const PEOPLE_ROLES: readonly Role[] = ['admin'];
 export const TEACHING_ROLES: readonly Role[] = ['instructor', 'admin'];
 
+/** A revision number from the address, or undefined for anything else (the current copy then opens). */
+function revisionOf(value: unknown): number | undefined {
+  const n = typeof value === 'string' ? Number(value) : NaN;
+  return Number.isInteger(n) && n >= 1 ? n : undefined;
+}
+
 export const routes: RouteRecordRaw[] = [
   {
     path: '/',
@@ -69,8 +75,16 @@ export const routes: RouteRecordRaw[] = [
     path: '/plans/:id',
     name: 'bench',
     component: () => import('@/pages/bench/index.vue'),
-    props: true,
+    // `?revision=3` opens that saved revision to look at.
+    props: (r) => ({ id: r.params.id, revision: revisionOf(r.query.revision) }),
     meta: { title: 'Bench', fullBleed: true },
+  },
+  {
+    path: '/try',
+    name: 'try',
+    component: () => import('@/pages/bench/index.vue'),
+    props: { guest: true },
+    meta: { public: true, title: 'Try the Bench', fullBleed: true },
   },
   {
     path: '/plans/:id/sheet',

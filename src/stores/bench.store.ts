@@ -1,9 +1,11 @@
 /**
  * The Bench store: the open plan, its edit history, the live simulation state and what the engine makes of them.
  * The document is replaced, never mutated, so every edit is one history entry and one re-evaluation.
- * The store never renders and never opens toasts; components decide how a refusal looks.
+ * The store never renders, never fetches and never opens toasts; pages load and save, components decide how a
+ * refusal looks. A plan opened to view (shared with the user, an old revision) is read-only: the sets still
+ * operate and the engine still sweeps and cures, but every edit is refused with the reason.
  */
-import { computed, ref, shallowRef } from 'vue';
+import { computed, ref, shallowRef, watch } from 'vue';
 import { defineStore } from 'pinia';
 import {
   findingKey,
@@ -21,6 +23,7 @@ import {
 } from '@shared/engine';
 import * as edits from '@/bench/plan-edits';
 import { partIds, simShape, type EditOutcome, type Position } from '@/bench/plan-edits';
+import { useSessionStore } from './session.store';
 
 export interface HistoryEntry {
   label: string;
@@ -31,16 +34,32 @@ export type EditResult = { ok: true } | { ok: false; reason: string };
 
 const HISTORY_LIMIT = 200;
 
+export interface LoadOptions {
+  /** Server timestamp of this version; absent for a plan that is never saved (the guest bench). */
+  updatedAt?: string;
+  /** Why the plan may not be changed here; absent or null means it may. */
+  readOnly?: string | null;
+  /** Not the server's current copy of a plan (the guest bench, an old revision): `planId` stays null. */
+  detached?: boolean;
+}
+
 /** A stable key for a finding so a selection survives re-evaluation when the same fault is still there. */
 export { findingKey };
 
 export const useBenchStore = defineStore('bench', () => {
+  /** What is open (a plan id, or a page's own key for a detached document). */
+  const openKey = ref<string | null>(null);
+  /** The saved plan open here, if it is one; the work sheet and autosave go by it. */
   const planId = ref<string | null>(null);
   const plan = shallowRef<Plan | null>(null);
   /** Server timestamp of the version this tab last loaded or saved. */
   const baseUpdatedAt = ref<string | undefined>(undefined);
   /** Bumped on every change to the document (edits, undo, redo); autosave watches this, not the plan. */
   const revision = ref(0);
+  /** The newest revision the server has; above it, edits wait to be saved (kept across leaving the Bench). */
+  const savedRevision = ref(0);
+  /** Why this plan may not be changed (shared to view, an old revision); null when it may. */
+  const readOnlyReason = ref<string | null>(null);
   const past = shallowRef<HistoryEntry[]>([]);
   const future = shallowRef<HistoryEntry[]>([]);
   const sim = shallowRef<SimState | null>(null);
@@ -88,39 +107,80 @@ export const useBenchStore = defineStore('bench', () => {
     () => evaluation.value?.sets.find((s) => s.set === selectedSet.value?.id) ?? null,
   );
 
-  const canUndo = computed(() => past.value.length > 0);
-  const canRedo = computed(() => future.value.length > 0);
+  const readOnly = computed(() => readOnlyReason.value !== null);
+  const unsaved = computed(() => revision.value > savedRevision.value);
+  const canUndo = computed(() => !readOnly.value && past.value.length > 0);
+  const canRedo = computed(() => !readOnly.value && future.value.length > 0);
   const undoLabel = computed(() => past.value.at(-1)?.label ?? null);
   const redoLabel = computed(() => future.value.at(-1)?.label ?? null);
 
-  function load(id: string, document: Plan, updatedAt?: string) {
-    planId.value = id;
+  /** Start afresh on a plan: no history, every set on hook. */
+  function load(id: string, document: Plan, options: LoadOptions | string = {}) {
+    const {
+      updatedAt,
+      readOnly: reason = null,
+      detached = false,
+    } = typeof options === 'string' ? { updatedAt: options } : options;
+    openKey.value = id;
+    planId.value = detached ? null : id;
     plan.value = document;
     baseUpdatedAt.value = updatedAt;
+    readOnlyReason.value = reason;
     past.value = [];
     future.value = [];
     revision.value = 0;
+    savedRevision.value = 0;
     sim.value = initialState(document);
     selectedPartId.value = null;
     selectedFindingKey.value = null;
   }
 
-  /** Forget the open plan (another plan is about to be opened). */
+  /**
+   * Open a plan as the server sent it. The same plan at the version this store last loaded or saved keeps its
+   * drawing, undo history, unsaved edits and simulation (coming back from the work sheet); another plan, or
+   * this one saved elsewhere since, starts afresh. True when it started afresh.
+   */
+  function open(id: string, document: Plan, options: LoadOptions = {}): boolean {
+    const same =
+      openKey.value === id &&
+      plan.value !== null &&
+      baseUpdatedAt.value === options.updatedAt &&
+      readOnlyReason.value === (options.readOnly ?? null);
+    if (same) return false;
+    load(id, document, options);
+    return true;
+  }
+
+  /** Forget the open plan and its history (another plan is about to be opened, or the user signed out). */
   function unload() {
+    openKey.value = null;
     planId.value = null;
     plan.value = null;
     sim.value = null;
     baseUpdatedAt.value = undefined;
+    readOnlyReason.value = null;
     past.value = [];
     future.value = [];
     revision.value = 0;
+    savedRevision.value = 0;
     selectedPartId.value = null;
     selectedFindingKey.value = null;
   }
 
-  function markSaved(updatedAt: string) {
+  /** The server holds the document as of `rev` (the revision that was sent), stamped `updatedAt`. */
+  function markSaved(updatedAt: string, rev = revision.value) {
     baseUpdatedAt.value = updatedAt;
+    savedRevision.value = Math.max(savedRevision.value, rev);
   }
+
+  // A history belongs to whoever made it: signing out (or in as someone else) drops it.
+  const session = useSessionStore();
+  watch(
+    () => session.user?.id ?? null,
+    (now, before) => {
+      if (now !== before) unload();
+    },
+  );
 
   /** Swap in a new document; the simulation is restarted only when parts it refers to came or went. */
   function replacePlan(next: Plan) {
@@ -133,7 +193,7 @@ export const useBenchStore = defineStore('bench', () => {
 
   /** Record one labelled edit. Every change to the document goes through here. */
   function commit(label: string, next: Plan) {
-    if (!plan.value || next === plan.value) return;
+    if (!plan.value || readOnly.value || next === plan.value) return;
     past.value = [...past.value, { label, plan: plan.value }].slice(-HISTORY_LIMIT);
     future.value = [];
     replacePlan(next);
@@ -141,7 +201,7 @@ export const useBenchStore = defineStore('bench', () => {
 
   function undo() {
     const entry = past.value.at(-1);
-    if (!entry || !plan.value) return;
+    if (!entry || !plan.value || readOnly.value) return;
     past.value = past.value.slice(0, -1);
     future.value = [...future.value, { label: entry.label, plan: plan.value }];
     replacePlan(entry.plan);
@@ -149,7 +209,7 @@ export const useBenchStore = defineStore('bench', () => {
 
   function redo() {
     const entry = future.value.at(-1);
-    if (!entry || !plan.value) return;
+    if (!entry || !plan.value || readOnly.value) return;
     future.value = future.value.slice(0, -1);
     past.value = [...past.value, { label: entry.label, plan: plan.value }];
     replacePlan(entry.plan);
@@ -189,6 +249,7 @@ export const useBenchStore = defineStore('bench', () => {
 
   /** Commit an accepted edit and tell the caller what happened; a refusal records nothing. */
   function run(outcome: EditOutcome): EditResult {
+    if (readOnlyReason.value !== null) return { ok: false, reason: readOnlyReason.value };
     if (!outcome.ok) return outcome;
     commit(outcome.label, outcome.plan);
     return { ok: true };
@@ -196,8 +257,8 @@ export const useBenchStore = defineStore('bench', () => {
 
   /** Run an edit that adds something; the new id, or null when the edit was refused. */
   function runAdd(outcome: EditOutcome): string | null {
-    run(outcome);
-    return outcome.ok ? (outcome.id ?? null) : null;
+    const result = run(outcome);
+    return result.ok && outcome.ok ? (outcome.id ?? null) : null;
   }
 
   const partName = (id: string) => edits.partName(requirePlan(), id);
@@ -221,8 +282,9 @@ export const useBenchStore = defineStore('bench', () => {
 
   function duplicatePart(id: string): { ok: true; id: string } | { ok: false; reason: string } {
     const outcome = edits.duplicatePart(requirePlan(), id);
-    run(outcome);
-    return outcome.ok ? { ok: true, id: outcome.id ?? id } : outcome;
+    const result = run(outcome);
+    if (!result.ok) return result;
+    return { ok: true, id: (outcome.ok && outcome.id) || id };
   }
 
   const connect = (a: PortRef, b: PortRef) => run(edits.connect(requirePlan(), a, b));
@@ -241,10 +303,15 @@ export const useBenchStore = defineStore('bench', () => {
   const applyCure = (result: CureResult) => run(edits.applyCure(requirePlan(), result));
 
   return {
+    openKey,
     planId,
     plan,
     baseUpdatedAt,
     revision,
+    savedRevision,
+    unsaved,
+    readOnlyReason,
+    readOnly,
     past,
     future,
     sim,
@@ -263,6 +330,7 @@ export const useBenchStore = defineStore('bench', () => {
     undoLabel,
     redoLabel,
     load,
+    open,
     unload,
     markSaved,
     commit,

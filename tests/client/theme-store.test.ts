@@ -8,6 +8,8 @@ function prefersDark(matches: boolean) {
     vi.fn((query: string) => ({
       matches: query === '(prefers-color-scheme: dark)' && matches,
       media: query,
+      addEventListener: () => undefined,
+      removeEventListener: () => undefined,
     })),
   );
 }

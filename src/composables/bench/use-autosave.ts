@@ -1,9 +1,11 @@
 /**
  * Debounced autosave of the open plan. Edits are never dropped: the newest document is always the one
  * sent, a dropped network is retried with backoff (and at once when the browser comes back online),
- * and a newer copy saved elsewhere stops saving until the user decides (409 → 'conflict').
+ * and a newer copy saved elsewhere stops saving until the user decides (409 → 'conflict'). Leaving the page,
+ * closing the tab or hiding it sends what waits at once.
  */
 import { computed, onBeforeUnmount, onMounted, ref, watch, type Ref } from 'vue';
+import { useEventListener, useLocalStorage, type Serializer } from '@vueuse/core';
 import { PlanSchema, type Plan } from '@shared/engine';
 import { ApiError } from '@/api/client';
 
@@ -12,10 +14,15 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'offline' | 'conflict' 
 export interface AutosaveOptions {
   /** Bumped on every document change. */
   revision: Ref<number>;
+  /** False while nothing may be saved (a plan opened to view, the guest bench); true when absent. */
+  enabled?: () => boolean;
+  /** The newest revision the server already has when the page opens (edits left unsaved last time). */
+  savedRevision?: number;
   document: () => Plan | null;
   baseUpdatedAt: () => string | undefined;
   save: (document: Plan, baseUpdatedAt?: string) => Promise<{ updatedAt: string }>;
-  onSaved: (updatedAt: string) => void;
+  /** `revision` is the one that was sent, so edits made while it was on its way still count as unsaved. */
+  onSaved: (updatedAt: string, revision: number) => void;
   delayMs?: number;
   maxBackoffMs?: number;
   /** Browser storage key for a copy of unsaved edits, so a closed tab or a crash does not lose them. */
@@ -28,42 +35,33 @@ export interface EditsBackup {
   at: string;
 }
 
-function storage(): Storage | null {
-  try {
-    return globalThis.localStorage ?? null;
-  } catch {
-    return null;
-  }
-}
+/** A kept copy reads back only while it is still a valid plan document; anything else counts as none. */
+const backupSerializer: Serializer<EditsBackup | null> = {
+  read(raw) {
+    try {
+      const value = JSON.parse(raw) as Partial<EditsBackup>;
+      const document = PlanSchema.safeParse(value.document);
+      if (!document.success) return null;
+      return { document: document.data, baseUpdatedAt: value.baseUpdatedAt, at: String(value.at ?? '') };
+    } catch {
+      return null;
+    }
+  },
+  write: (value) => JSON.stringify(value),
+};
 
-/** The unsaved edits kept for a plan, if any and still a valid plan document. */
-export function readEditsBackup(key: string): EditsBackup | null {
-  try {
-    const raw = storage()?.getItem(key);
-    if (!raw) return null;
-    const value = JSON.parse(raw) as Partial<EditsBackup>;
-    const document = PlanSchema.safeParse(value.document);
-    if (!document.success) return null;
-    return { document: document.data, baseUpdatedAt: value.baseUpdatedAt, at: String(value.at ?? '') };
-  } catch {
-    return null;
-  }
-}
-
-export function clearEditsBackup(key: string): void {
-  try {
-    storage()?.removeItem(key);
-  } catch {
-    // Storage refused: nothing was kept either.
-  }
-}
-
-function writeEditsBackup(key: string, backup: EditsBackup): void {
-  try {
-    storage()?.setItem(key, JSON.stringify(backup));
-  } catch {
-    // Storage full or refused: the server copy and the in-memory edits remain.
-  }
+/**
+ * The unsaved edits this browser keeps for one plan (VueUse storage: a refused or full storage leaves the
+ * server copy and the edits in memory, and null removes the entry).
+ */
+export function useEditsBackup(key: string): Ref<EditsBackup | null> {
+  return useLocalStorage<EditsBackup | null>(key, null, {
+    serializer: backupSerializer,
+    shallow: true,
+    writeDefaults: false,
+    // Written on every edit while saving waits; synchronous so a tab closed right after still has it.
+    flush: 'sync',
+  });
 }
 
 const RETRYABLE = new Set(['NETWORK', 'RATE_LIMITED', 'INTERNAL', 'BAD_RESPONSE']);
@@ -76,40 +74,49 @@ export function useAutosave(options: AutosaveOptions) {
 
   const state = ref<SaveState>('saved');
   const errorMessage = ref<string | null>(null);
-  const savedRevision = ref(options.revision.value);
+  const savedRevision = ref(options.savedRevision ?? options.revision.value);
+  const backup = options.backupKey ? useEditsBackup(options.backupKey) : ref<EditsBackup | null>(null);
   const attempts = ref(0);
-  const dirty = computed(() => options.revision.value > savedRevision.value);
+  const enabled = options.enabled ?? (() => true);
+  const dirty = computed(() => enabled() && options.revision.value > savedRevision.value);
 
   let timer: ReturnType<typeof setTimeout> | null = null;
-  let inFlight = false;
+  /** The save on its way, so a second call waits for it instead of sending the same edits twice. */
+  let sending: Promise<void> | null = null;
+  let disposed = false;
 
   function schedule(ms: number) {
     if (timer) clearTimeout(timer);
+    if (disposed) return;
     timer = setTimeout(() => {
       timer = null;
       void flush();
     }, ms);
   }
 
-  async function flush(): Promise<void> {
-    if (inFlight || state.value === 'conflict') return;
+  function flush(): Promise<void> {
+    if (state.value === 'conflict') return Promise.resolve();
+    sending ??= send().finally(() => (sending = null));
+    return sending;
+  }
+
+  async function send(): Promise<void> {
     const document = options.document();
     if (!document || !dirty.value) {
       if (state.value !== 'error') state.value = 'saved';
       return;
     }
     const revision = options.revision.value;
-    inFlight = true;
     if (state.value !== 'offline') state.value = 'saving';
     try {
       const record = await options.save(document, options.baseUpdatedAt());
       savedRevision.value = Math.max(savedRevision.value, revision);
-      options.onSaved(record.updatedAt);
+      options.onSaved(record.updatedAt, revision);
       attempts.value = 0;
       errorMessage.value = null;
       state.value = dirty.value ? 'pending' : 'saved';
       if (dirty.value) schedule(delay);
-      else if (options.backupKey) clearEditsBackup(options.backupKey);
+      else backup.value = null;
     } catch (err) {
       const apiError = err instanceof ApiError ? err : null;
       errorMessage.value = err instanceof Error ? err.message : String(err);
@@ -124,20 +131,14 @@ export function useAutosave(options: AutosaveOptions) {
         // The server refused this document (validation, rights): retrying the same one would fail again.
         state.value = 'error';
       }
-    } finally {
-      inFlight = false;
     }
   }
 
   watch(options.revision, (rev) => {
-    if (rev <= savedRevision.value) return;
+    if (!enabled() || rev <= savedRevision.value) return;
     const document = options.document();
     if (options.backupKey && document) {
-      writeEditsBackup(options.backupKey, {
-        document,
-        baseUpdatedAt: options.baseUpdatedAt(),
-        at: new Date().toISOString(),
-      });
+      backup.value = { document, baseUpdatedAt: options.baseUpdatedAt(), at: new Date().toISOString() };
     }
     if (state.value === 'conflict') return;
     if (state.value === 'saved' || state.value === 'error') state.value = 'pending';
@@ -146,7 +147,7 @@ export function useAutosave(options: AutosaveOptions) {
 
   /** Forget unsaved work counting, e.g. after reloading the server's copy. */
   function reset() {
-    if (options.backupKey) clearEditsBackup(options.backupKey);
+    backup.value = null;
     if (timer) clearTimeout(timer);
     timer = null;
     savedRevision.value = options.revision.value;
@@ -161,25 +162,41 @@ export function useAutosave(options: AutosaveOptions) {
     return flush();
   }
 
-  function onOnline() {
-    if (dirty.value && state.value === 'offline') void saveNow();
+  /** Leaving (another page, closing the tab, the tab hidden on a phone): send what waits now, once. */
+  async function flushOnLeave(): Promise<void> {
+    if (sending) await sending;
+    if (dirty.value && state.value !== 'conflict') await saveNow();
   }
 
-  function onBeforeUnload(event: BeforeUnloadEvent) {
-    if (dirty.value) event.preventDefault();
-  }
+  useEventListener(window, 'online', () => {
+    if (dirty.value && state.value === 'offline') void saveNow();
+  });
+  useEventListener(window, 'beforeunload', (event: BeforeUnloadEvent) => {
+    if (!dirty.value) return;
+    void flushOnLeave();
+    // Ask the browser to confirm: the save just sent may not arrive before the page goes.
+    event.preventDefault();
+  });
+  // A hidden tab may be discarded without a beforeunload (mobile browsers): save while it still can.
+  useEventListener(document, 'visibilitychange', () => {
+    if (document.visibilityState === 'hidden') void flushOnLeave();
+  });
 
   onMounted(() => {
-    window.addEventListener('online', onOnline);
-    window.addEventListener('beforeunload', onBeforeUnload);
+    // Edits left unsaved when the page was last left (offline then): they go out as soon as it is back.
+    if (dirty.value && state.value === 'saved') {
+      state.value = 'pending';
+      schedule(delay);
+    }
   });
   onBeforeUnmount(() => {
-    window.removeEventListener('online', onOnline);
-    window.removeEventListener('beforeunload', onBeforeUnload);
+    // Leaving the page with edits waiting: send them now rather than lose them; no retries after that
+    // (the next visit picks the edits up again from the store).
+    void flushOnLeave();
+    disposed = true;
     if (timer) clearTimeout(timer);
-    // Leaving the page with edits waiting: send them now rather than lose them.
-    if (dirty.value && state.value !== 'conflict') void flush();
+    timer = null;
   });
 
-  return { state, errorMessage, dirty, attempts, saveNow, reset };
+  return { state, errorMessage, dirty, attempts, backup, saveNow, flushOnLeave, reset };
 }

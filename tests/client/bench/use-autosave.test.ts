@@ -2,7 +2,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { defineComponent, h, nextTick, ref } from 'vue';
 import { mount } from '@vue/test-utils';
 import { ApiError } from '@/api/client';
-import { readEditsBackup, useAutosave } from '@/composables/bench/use-autosave';
+import { useAutosave, useEditsBackup } from '@/composables/bench/use-autosave';
 import { twoSetPlan } from './bench-fixture';
 
 type Save = (doc: unknown, base?: string) => Promise<{ updatedAt: string }>;
@@ -85,14 +85,14 @@ describe('useAutosave', () => {
     await nextTick();
     expect(h.autosave.state.value).toBe('offline');
     // While offline the newest edits are also kept in the browser, with the version they were based on.
-    expect(readEditsBackup(BACKUP)?.document.name).toBe('C');
-    expect(readEditsBackup(BACKUP)?.baseUpdatedAt).toBe('base');
+    expect(useEditsBackup(BACKUP).value?.document.name).toBe('C');
+    expect(useEditsBackup(BACKUP).value?.baseUpdatedAt).toBe('base');
     fail = false;
     await vi.advanceTimersByTimeAsync(2000); // second retry after 2 s sends the newest document
     expect(save).toHaveBeenCalledTimes(3);
     expect((save.mock.calls[2][0] as { name: string }).name).toBe('C');
     expect(h.autosave.state.value).toBe('saved');
-    expect(readEditsBackup(BACKUP)).toBeNull();
+    expect(useEditsBackup(BACKUP).value).toBeNull();
     h.wrapper.unmount();
   });
 
