@@ -13,11 +13,14 @@ export async function decideAccess(
 ): Promise<true | RouteLocationRaw> {
   if (to.meta.light) return true;
   // Loaded on demand: the session brings the API client and its schemas, which a light page does not need.
-  const { useSessionStore } = await import('@/stores/session.store');
+  const [{ useSessionStore }, { loadSession }] = await Promise.all([
+    import('@/stores/session.store'),
+    import('@/composables/use-session-actions'),
+  ]);
   const session = useSessionStore(pinia);
   if (!session.loaded) {
     try {
-      await session.load();
+      await loadSession(session);
     } catch {
       // Server unreachable: treat as signed out; public pages still open, the sign-in form reports the outage.
     }

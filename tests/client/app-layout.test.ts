@@ -83,7 +83,7 @@ describe('AppLayout', () => {
   });
 
   it('labels the theme toggle with what it will do', async () => {
-    vi.stubGlobal('matchMedia', () => ({ matches: false }));
+    vi.stubGlobal('matchMedia', () => ({ matches: false, addEventListener() {}, removeEventListener() {} }));
     const { wrapper } = await mountLayout(null);
     const toggle = wrapper.get('[data-testid="theme-toggle"]');
     expect(toggle.attributes('aria-label')).toBe('Switch to dark theme');

@@ -21,7 +21,7 @@ const api = vi.hoisted(() => ({
 }));
 vi.mock('@/api/plans', () => ({ plansApi: api }));
 
-const Blank = defineComponent({ render: () => h('p', 'another page') });
+const Blank = { render: () => h('p', 'another page') };
 
 function record(id: string, document: Plan, updatedAt: string): PlanRecord {
   return {
