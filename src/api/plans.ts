@@ -52,7 +52,12 @@ export const plansApi = {
   rename: (id: string, name: string, baseUpdatedAt: string) =>
     request('PATCH', planPath(id), PlanRecordSchema, { name, baseUpdatedAt } satisfies PlanRename),
   duplicate: (id: string, name?: string) =>
-    request('POST', `${planPath(id)}/duplicate`, PlanRecordSchema, (name ? { name } : {}) satisfies PlanDuplicate),
+    request(
+      'POST',
+      `${planPath(id)}/duplicate`,
+      PlanRecordSchema,
+      (name ? { name } : {}) satisfies PlanDuplicate,
+    ),
   remove: (id: string) => request('DELETE', planPath(id), null),
   undelete: (id: string) => request('POST', `${planPath(id)}/undelete`, PlanRecordSchema),
   /** Address of the plan file download (the browser keeps the session cookie). */

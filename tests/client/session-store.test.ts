@@ -42,9 +42,9 @@ describe('the session store and the actions that fill it', () => {
     );
     const session = useSessionStore();
 
-    await expect(useSessionActions().signIn({ email: 'wren@example.org', password: 'nope' })).rejects.toBeInstanceOf(
-      ApiError,
-    );
+    await expect(
+      useSessionActions().signIn({ email: 'wren@example.org', password: 'nope' }),
+    ).rejects.toBeInstanceOf(ApiError);
     expect(session.user).toBeNull();
   });
 
@@ -71,7 +71,11 @@ describe('the session store and the actions that fill it', () => {
     const session = useSessionStore();
 
     await expect(
-      useSessionActions().signUp({ email: 'wren@example.org', displayName: 'Wren', password: 'copper-pair-lamp-relay' }),
+      useSessionActions().signUp({
+        email: 'wren@example.org',
+        displayName: 'Wren',
+        password: 'copper-pair-lamp-relay',
+      }),
     ).resolves.toBeNull();
     expect(session.signedIn).toBe(false);
   });

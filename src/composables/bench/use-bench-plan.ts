@@ -15,9 +15,7 @@ import { PLANS_KEY } from '@/composables/use-plan-library';
 import { useGuestPlan } from './use-guest-plan';
 
 export type BenchSource =
-  | { kind: 'plan'; id: string }
-  | { kind: 'revision'; id: string; revision: number }
-  | { kind: 'guest' };
+  { kind: 'plan'; id: string } | { kind: 'revision'; id: string; revision: number } | { kind: 'guest' };
 
 export interface OpenedPlan {
   document: Plan;

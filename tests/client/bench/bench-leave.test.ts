@@ -116,8 +116,7 @@ describe('leaving the Bench', () => {
     const save = api.update.getMockImplementation()!;
     let arrive = () => {};
     api.update.mockImplementationOnce(
-      (id: string, document: Plan) =>
-        new Promise((resolve) => (arrive = () => resolve(save(id, document)))),
+      (id: string, document: Plan) => new Promise((resolve) => (arrive = () => resolve(save(id, document)))),
     );
     store.renamePart('front', 'Reception');
     expect(api.update).not.toHaveBeenCalled();
@@ -168,7 +167,10 @@ describe('undo history across pages', () => {
     await router.push('/plans/p1');
     await settle();
 
-    expect(store.past.map((e) => e.label)).toEqual(['Rename Front desk to Reception', 'Lift pair 18 in Back room']);
+    expect(store.past.map((e) => e.label)).toEqual([
+      'Rename Front desk to Reception',
+      'Lift pair 18 in Back room',
+    ]);
     store.undo();
     expect(store.plan?.sets.find((s) => s.id === 'back')?.leadChanges ?? []).toEqual([]);
     wrapper.unmount();
