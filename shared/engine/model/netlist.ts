@@ -456,7 +456,13 @@ function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly
 }
 
 /** Every part's wiring: sets (then their ringers), add-ons, adapters, in plan order. */
-function wireParts(b: Builder, plan: Plan, sets: SetInfo[], addOnParts: PartInfo[], adapterParts: PartInfo[]) {
+function wireParts(
+  b: Builder,
+  plan: Plan,
+  sets: SetInfo[],
+  addOnParts: PartInfo[],
+  adapterParts: PartInfo[],
+) {
   plan.sets.forEach((s, i) => {
     const info = sets[i];
     const p = b.parts[info.part];

@@ -1,0 +1,121 @@
+/** Finding evaluation: the registry's state rules over one state's facts, then the wiring rules (once per netlist). */
+import { isActive, selectedLines } from '../model/facts';
+import type { Netlist } from '../model/netlist';
+import type { Finding } from './evaluation.types';
+import { PathFinder } from './paths';
+import type { FindingFacts, LineFacts, StateRule, WiringRule } from './rule.types';
+import { RULES } from './rules/index';
+import type { StateNets } from './state-nets';
+import type { LineState, SimState } from '../sim/state.schema';
+
+const ALL = Object.values(RULES);
+const STATE_RULES = ALL.filter((r): r is StateRule => r.kind === 'state');
+const WIRING_RULES = ALL.filter((r): r is WiringRule => r.kind === 'wiring');
+const EVENT_RULES = STATE_RULES.filter((r) => r.fires.event);
+
+/** The facts every state rule reads, from the state's nets and its per-line facts. */
+export function findingFacts(
+  nl: Netlist,
+  state: SimState,
+  nets: StateNets,
+  lineStates: (LineState | undefined)[],
+  lines: LineFacts[],
+  buzzerOn: boolean[],
+  paths: boolean,
+  eventsOnly = false,
+): FindingFacts {
+  const { mech, facts } = nets;
+  const nSets = nl.sets.length;
+  const selected: number[][] = new Array(nSets);
+  const active: boolean[] = new Array(nSets);
+  for (let si = 0; si < nSets; si++) {
+    selected[si] = selectedLines(nl, si, mech);
+    active[si] = isActive(mech, si);
+  }
+  return {
+    nl,
+    state,
+    mech,
+    facts,
+    lineStates,
+    lines,
+    selected,
+    active,
+    buzzerOn,
+    finder: paths ? new PathFinder(nl, mech, facts.roots) : null,
+    eventsOnly,
+  };
+}
+
+/** Position in the listing of a finding about one set: the set's index, then the first line's index. */
+function bySetOrder(nl: Netlist, f: Finding): number {
+  const set = nl.setById.get(f.sets[0])?.index ?? 0;
+  const line = nl.lines.findIndex((l) => l.number === f.lines[0]);
+  return set * (nl.lines.length + 1) + line + 1;
+}
+
+/** Findings about sets, from consecutive bySet rules: by set, then line, then rule (a stable sort). */
+function mergeBySet(nl: Netlist, chunks: Finding[][], out: Finding[]): void {
+  const filled = chunks.filter((c) => c.length > 0);
+  if (filled.length === 1) {
+    for (const x of filled[0]) out.push(x);
+    return;
+  }
+  const all = filled.flat();
+  const order = new Map(all.map((x) => [x, bySetOrder(nl, x)]));
+  all.sort((a, b) => order.get(a)! - order.get(b)!);
+  for (const x of all) out.push(x);
+}
+
+/** The state rules in registry order (with facts.eventsOnly, only those a KSU event can raise). */
+export function stateFindings(f: FindingFacts): Finding[] {
+  const out: Finding[] = [];
+  let group: Finding[][] | null = null;
+  for (const rule of STATE_RULES) {
+    if (f.eventsOnly && !rule.fires.event) continue;
+    if (rule.bySet) {
+      const found: Finding[] = [];
+      rule.find(f, found);
+      (group ??= []).push(found);
+      continue;
+    }
+    if (group) {
+      mergeBySet(f.nl, group, out);
+      group = null;
+    }
+    rule.find(f, out);
+  }
+  if (group) mergeBySet(f.nl, group, out);
+  f.finder?.release();
+  return out;
+}
+
+const wiringCache = new WeakMap<Netlist, { plain: Finding[]; withPaths?: Finding[] }>();
+
+/**
+ * The wiring rules' findings, made once per netlist (with and without paths): the same objects in every state,
+ * which the sweep relies on to key them once.
+ */
+export function wiringFindings(nl: Netlist, withPaths: boolean): Finding[] {
+  let entry = wiringCache.get(nl);
+  if (!entry) {
+    entry = { plain: WIRING_RULES.flatMap((r) => r.find(nl, false)) };
+    wiringCache.set(nl, entry);
+  }
+  if (!withPaths) return entry.plain;
+  entry.withPaths ??= WIRING_RULES.flatMap((r) => r.find(nl, true));
+  return entry.withPaths;
+}
+
+/** Every finding of one state: state rules, then wiring rules. */
+export function allFindings(f: FindingFacts, withPaths: boolean): Finding[] {
+  const dynamic = stateFindings(f);
+  const fixed = wiringFindings(f.nl, withPaths);
+  return fixed.length ? dynamic.concat(fixed) : dynamic;
+}
+
+/** False when no KSU event in this state can raise a finding whatever the sets do. */
+export function eventMayAddFindings(state: Pick<SimState, 'lines' | 'intercom'>): boolean {
+  for (const r of EVENT_RULES) if (r.eventMayAdd?.(state) ?? true) return true;
+  return false;
+}
