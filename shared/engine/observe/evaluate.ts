@@ -6,7 +6,7 @@ import type { Plan } from '../document/plan.schema';
 import { getNetlist } from '../model/netlist';
 import type { SimState } from '../sim/state.schema';
 import type { Evaluation, Finding } from './evaluation.types';
-import { allFindings, eventMayAddFindings, findingFacts, stateFindings } from './findings';
+import { allFindings, eventMayAddFindings, eventRulesFor, findingFacts, stateFindings } from './findings';
 import {
   buzzersOn,
   lineFacts,
@@ -69,8 +69,10 @@ export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): 
 export function eventFindings(plan: Plan, state: SimState, nets: StateNets): Finding[] {
   if (!eventMayAddFindings(state)) return [];
   const nl = getNetlist(plan);
+  const rules = eventRulesFor(state, { nl, facts: nets.facts });
+  if (!rules.length) return [];
   const lineStates = lineStatesOf(nl, state);
   const lines = lineFacts(nl, nets.facts, lineStates, false);
   const buzzerOn = state.intercom.calling ? buzzersOn(nl, state, nets.facts) : [];
-  return stateFindings(findingFacts(nl, state, nets, lineStates, lines, buzzerOn, false, true));
+  return stateFindings(findingFacts(nl, state, nets, lineStates, lines, buzzerOn, false, true), rules);
 }

@@ -1,5 +1,5 @@
 /** Finding evaluation: the registry's state rules over one state's facts, then the wiring rules (once per netlist). */
-import { isActive, selectedLines } from '../model/facts';
+import { isActive, selectedLines, type NetFacts } from '../model/facts';
 import type { Netlist } from '../model/netlist';
 import type { Finding } from './evaluation.types';
 import { PathFinder } from './paths';
@@ -68,10 +68,10 @@ function mergeBySet(nl: Netlist, chunks: Finding[][], out: Finding[]): void {
 }
 
 /** The state rules in registry order (with facts.eventsOnly, only those a KSU event can raise). */
-export function stateFindings(f: FindingFacts): Finding[] {
+export function stateFindings(f: FindingFacts, rules: readonly StateRule[] = STATE_RULES): Finding[] {
   const out: Finding[] = [];
   let group: Finding[][] | null = null;
-  for (const rule of STATE_RULES) {
+  for (const rule of rules) {
     if (f.eventsOnly && !rule.fires.event) continue;
     if (rule.bySet) {
       const found: Finding[] = [];
@@ -118,4 +118,9 @@ export function allFindings(f: FindingFacts, withPaths: boolean): Finding[] {
 export function eventMayAddFindings(state: Pick<SimState, 'lines' | 'intercom'>): boolean {
   for (const r of EVENT_RULES) if (r.eventMayAdd?.(state) ?? true) return true;
   return false;
+}
+
+/** The event rules that may raise a finding in this state with the sets' nets (registry order). */
+export function eventRulesFor(state: SimState, on: { nl: Netlist; facts: NetFacts }): StateRule[] {
+  return EVENT_RULES.filter((r) => r.eventMayAdd?.(state, on) ?? true);
 }

@@ -77,8 +77,28 @@ export function lineStatus(
   const ls = lineStates[i];
   if (facts.aClosed[i]) return 'in-use';
   if (ls?.circuit === 'held') return 'held';
-  if (ls?.ringing) return 'ringing';
+  if (ls?.ringing || ringingLineJoined(facts, lineStates, i) >= 0) return 'ringing';
   return 'idle';
+}
+
+/**
+ * A ringing line whose talk pair is joined to line i's (both conductors, either way round), or -1: its ringing
+ * current reaches line i's ringers and line circuit, which sees ringing and flashes the lamps (common practice).
+ */
+export function ringingLineJoined(
+  facts: NetFacts,
+  lineStates: readonly (LineState | undefined)[],
+  i: number,
+): number {
+  const { rootT, rootR } = facts;
+  const t = rootT[i];
+  const r = rootR[i];
+  if (t === r) return -1; // a shorted pair rings nothing
+  for (let j = 0; j < rootT.length; j++) {
+    if (j === i || !lineStates[j]?.ringing) continue;
+    if ((rootT[j] === t && rootR[j] === r) || (rootT[j] === r && rootR[j] === t)) return j;
+  }
+  return -1;
 }
 
 function lineCadence(status: LineStatus): Cadence {

@@ -40,8 +40,14 @@ export interface StateRule<C extends FindingCode = FindingCode> {
    * (ringing, hold, intercom) can raise it where the idle KSU does not.
    */
   fires: { position: boolean; event: boolean };
-  /** For an event rule: false when this KSU state cannot raise it whatever the sets do (the sweep skips it). */
-  eventMayAdd?: (state: Pick<SimState, 'lines' | 'intercom'>) => boolean;
+  /**
+   * For an event rule: false when this KSU state cannot raise it whatever the sets do (the sweep skips the event);
+   * given the nets of the sets' positions (`on`), false when it cannot raise it in them (a cheap test, no facts).
+   */
+  eventMayAdd?: (
+    state: Pick<SimState, 'lines' | 'intercom'>,
+    on?: { nl: Netlist; facts: NetFacts },
+  ) => boolean;
   /** Listed with the other findings about one set: merged by set, then line, then registry order. */
   bySet?: boolean;
   /** Appends its findings; with facts.eventsOnly, only those the KSU event raises. */

@@ -6,8 +6,10 @@ import type { RuleRegistry } from '../rule.types';
 import { breakIn } from './break-in';
 import { intercomSoundsSeveral } from './intercom-sounds-several';
 import { lineLitUnattended } from './line-lit-unattended';
+import { lineOnControlLead } from './line-on-control-lead';
 import { linesJoined } from './lines-joined';
 import { privateLeadShared } from './private-lead-shared';
+import { ringingOverJoinedLines } from './ringing-over-joined-lines';
 import { setHearsSeveralLines } from './set-hears-several-lines';
 import { setHearsUnselectedLine } from './set-hears-unselected-line';
 
@@ -18,5 +20,7 @@ export const RULES: RuleRegistry = {
   BREAK_IN: breakIn,
   LINE_LIT_UNATTENDED: lineLitUnattended,
   INTERCOM_SOUNDS_SEVERAL: intercomSoundsSeveral,
+  LINE_ON_CONTROL_LEAD: lineOnControlLead,
+  RINGING_OVER_JOINED_LINES: ringingOverJoinedLines,
   PRIVATE_LEAD_SHARED: privateLeadShared,
 };

@@ -1,0 +1,82 @@
+/**
+ * A line's tip or ring on ground, or on another line's A-lead or lamp lead, through some set's leads (a lead one
+ * set switches landing on a pair another set or the KSU uses for an A-lead or lamp): the line is seized or noisy
+ * with no set on it, the other line looks busy, its lamp supply is shorted or lights the wrong lamps
+ * (common practice, no published source).
+ */
+import type { Conductor } from '../../document/plan.schema';
+import { describeVia, hopsOf, latchedOn, pathIn } from '../rule-helpers';
+import type { StateRule } from '../rule.types';
+import type { TerminalPath } from '../paths';
+
+interface Landing {
+  conductor: Conductor;
+  /** 'A' / 'L' of line index `on`, or ground. */
+  lead: 'A' | 'L' | 'ground';
+  on: number;
+}
+
+const LEAD_WORDS = { A: 'A-lead', L: 'lamp lead', ground: 'ground' } as const;
+
+export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
+  kind: 'state',
+  code: 'LINE_ON_CONTROL_LEAD',
+  fires: { position: true, event: false },
+  find(f, out) {
+    const { nl, facts, finder } = f;
+    const { roots, rootT, rootR, rootL, gnd } = facts;
+    const d = nl.dense;
+    const nLines = nl.lines.length;
+    const rootA: number[] = new Array(nLines);
+    for (let j = 0; j < nLines; j++) rootA[j] = roots[d[nl.lines[j].a]];
+    for (let i = 0; i < nLines; i++) {
+      // Per other line (index), or nLines for ground: where this line's conductors land.
+      const byTarget = new Map<number, Landing[]>();
+      const add = (x: Landing) => {
+        const k = x.lead === 'ground' ? nLines : x.on;
+        const list = byTarget.get(k);
+        if (list) list.push(x);
+        else byTarget.set(k, [x]);
+      };
+      for (const conductor of ['tip', 'ring'] as const) {
+        const r = conductor === 'tip' ? rootT[i] : rootR[i];
+        if (conductor === 'ring' && r === rootT[i]) continue; // one net: the tip's landing says it
+        // On ground, the A-leads of lines in use and shorted lamp leads are ground too: ground says it all.
+        if (r === gnd) {
+          add({ conductor, lead: 'ground', on: -1 });
+          continue;
+        }
+        for (let j = 0; j < nLines; j++) {
+          if (j === i) continue;
+          if (r === rootA[j]) add({ conductor, lead: 'A', on: j });
+          if (r === rootL[j]) add({ conductor, lead: 'L', on: j });
+        }
+      }
+      const line = nl.lines[i];
+      for (const landings of byTarget.values()) {
+        const first = landings[0];
+        const other = first.lead === 'ground' ? null : nl.lines[first.on];
+        const target = first.lead === 'ground' ? nl.gnd : first.lead === 'A' ? other!.a : other!.l;
+        const p: TerminalPath | null = pathIn(finder, first.conductor === 'tip' ? line.t : line.r, target);
+        const where = landings
+          .map((x) => `its ${x.conductor} on ${other ? `line ${other.number}'s ` : ''}${LEAD_WORDS[x.lead]}`)
+          .join(' and ');
+        const lines = other ? [line.number, other.number] : [line.number];
+        const effects = [`line ${line.number} is seized or noisy with nobody on it`];
+        if (landings.some((x) => x.lead === 'A'))
+          effects.push(`line ${other!.number} looks in use (its A-lead worked with nobody off hook)`);
+        if (landings.some((x) => x.lead === 'L'))
+          effects.push(`line ${other!.number}'s lamp supply is on it (lamps dark or lit wrongly)`);
+        out.push({
+          code: 'LINE_ON_CONTROL_LEAD',
+          severity: 'fault',
+          sets: latchedOn(f, lines).map((s) => s.id),
+          lines,
+          stations: [],
+          message: `Line ${line.number} has ${where}${p ? describeVia(f, p) : ''}: ${effects.join('; ')}.`,
+          path: hopsOf(finder, p),
+        });
+      }
+    }
+  },
+};
