@@ -18,6 +18,15 @@ interface Landing {
 
 const LEAD_WORDS = { A: 'A-lead', L: 'lamp lead', ground: 'ground' } as const;
 
+/** Landings grouped by the line they land on (index), or by the line count for ground. */
+function addLanding(map: Map<number, Landing[]> | null, key: number, x: Landing): Map<number, Landing[]> {
+  const out = map ?? new Map<number, Landing[]>();
+  const list = out.get(key);
+  if (list) list.push(x);
+  else out.set(key, [x]);
+  return out;
+}
+
 export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
   kind: 'state',
   code: 'LINE_ON_CONTROL_LEAD',
@@ -30,28 +39,24 @@ export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
     const rootA: number[] = new Array(nLines);
     for (let j = 0; j < nLines; j++) rootA[j] = roots[d[nl.lines[j].a]];
     for (let i = 0; i < nLines; i++) {
-      // Per other line (index), or nLines for ground: where this line's conductors land.
-      const byTarget = new Map<number, Landing[]>();
-      const add = (x: Landing) => {
-        const k = x.lead === 'ground' ? nLines : x.on;
-        const list = byTarget.get(k);
-        if (list) list.push(x);
-        else byTarget.set(k, [x]);
-      };
-      for (const conductor of ['tip', 'ring'] as const) {
-        const r = conductor === 'tip' ? rootT[i] : rootR[i];
-        if (conductor === 'ring' && r === rootT[i]) continue; // one net: the tip's landing says it
+      // Hot path (every state of a sweep): nothing allocated until a conductor lands somewhere.
+      let byTarget: Map<number, Landing[]> | null = null;
+      for (let c = 0; c < 2; c++) {
+        const conductor: Conductor = c === 0 ? 'tip' : 'ring';
+        const r = c === 0 ? rootT[i] : rootR[i];
+        if (c === 1 && r === rootT[i]) continue; // one net: the tip's landing says it
         // On ground, the A-leads of lines in use and shorted lamp leads are ground too: ground says it all.
         if (r === gnd) {
-          add({ conductor, lead: 'ground', on: -1 });
+          byTarget = addLanding(byTarget, nLines, { conductor, lead: 'ground', on: -1 });
           continue;
         }
         for (let j = 0; j < nLines; j++) {
           if (j === i) continue;
-          if (r === rootA[j]) add({ conductor, lead: 'A', on: j });
-          if (r === rootL[j]) add({ conductor, lead: 'L', on: j });
+          if (r === rootA[j]) byTarget = addLanding(byTarget, j, { conductor, lead: 'A', on: j });
+          if (r === rootL[j]) byTarget = addLanding(byTarget, j, { conductor, lead: 'L', on: j });
         }
       }
+      if (!byTarget) continue;
       const line = nl.lines[i];
       for (const landings of byTarget.values()) {
         const first = landings[0];
