@@ -31,6 +31,7 @@ describe('LINE_ON_CONTROL_LEAD', () => {
     const f = ev.findings.find((x) => x.code === 'LINE_ON_CONTROL_LEAD' && x.lines.includes(7))!;
     expect(f.message).toContain("tip on line 7's A-lead");
     expect(f.message).toContain("ring on line 7's lamp lead");
+    expect(f.message).toContain("through Desk's talk pair (CT) on pair 23 (violet-green)"); // ICEA S-80-576
     expect(f.path[0].text).toContain('line 1 tip');
     expect(f.path[f.path.length - 1].text).toContain('line 7 A-lead');
     const pair23 = f.path.filter((h) => h.pair === 23 && h.pin !== undefined);

@@ -6,8 +6,8 @@
  */
 import type { Conductor } from '../../document/plan.schema';
 import { describeVia, hopsOf, latchedOn, pathIn } from '../rule-helpers';
-import type { StateRule } from '../rule.types';
-import type { TerminalPath } from '../paths';
+import type { FindingFacts, StateRule } from '../rule.types';
+import { firstCrossing, lastUnitLeadSentence, type TerminalPath } from '../paths';
 
 interface Landing {
   conductor: Conductor;
@@ -17,6 +17,16 @@ interface Landing {
 }
 
 const LEAD_WORDS = { A: 'A-lead', L: 'lamp lead', ground: 'ground' } as const;
+
+/**
+ * Where the line leaves its proper leads: the crossing between two sets, or else the lead by which the path leaves
+ * the last set for the cord (the pair that lands on the other lead at the KSU).
+ */
+function via(f: FindingFacts, p: TerminalPath): string {
+  if (firstCrossing(f.nl, p)) return describeVia(f, p);
+  const lead = lastUnitLeadSentence(f.nl, p);
+  return lead ? `, through ${lead}` : '';
+}
 
 /** Landings grouped by the line they land on (index), or by the line count for ground. */
 function addLanding(map: Map<number, Landing[]> | null, key: number, x: Landing): Map<number, Landing[]> {
@@ -78,7 +88,7 @@ export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
           sets: latchedOn(f, lines).map((s) => s.id),
           lines,
           stations: [],
-          message: `Line ${line.number} has ${where}${p ? describeVia(f, p) : ''}: ${effects.join('; ')}.`,
+          message: `Line ${line.number} has ${where}${p ? via(f, p) : ''}: ${effects.join('; ')}.`,
           path: hopsOf(finder, p),
         });
       }
