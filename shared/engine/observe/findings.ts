@@ -61,6 +61,9 @@ function bySetOrder(nl: Netlist, f: Finding): number {
   return set * (nl.lines.length + 1) + line + 1;
 }
 
+let startBuffer = new Int32Array(0);
+let keyBuffer = new Int32Array(0);
+
 /**
  * Findings about sets, from consecutive bySet rules: by set, then line, then rule. A counting sort (stable, no
  * comparisons): a state of a large plan has hundreds of these.
@@ -77,8 +80,12 @@ function mergeBySet(nl: Netlist, chunks: Finding[][], out: Finding[]): void {
     return;
   }
   const slots = nl.sets.length * (nl.lines.length + 1) + 1;
-  const start = new Int32Array(slots + 1);
-  const keys = new Int32Array(total);
+  // Buffers kept between calls (evaluation is synchronous): the sweep merges once per state.
+  if (startBuffer.length < slots + 1) startBuffer = new Int32Array(slots + 1);
+  if (keyBuffer.length < total) keyBuffer = new Int32Array(Math.max(total, 2 * keyBuffer.length));
+  const start = startBuffer;
+  const keys = keyBuffer;
+  start.fill(0, 0, slots + 1);
   let k = 0;
   for (const c of chunks) for (const x of c) start[(keys[k++] = bySetOrder(nl, x)) + 1]++;
   for (let i = 0; i < slots; i++) start[i + 1] += start[i];
