@@ -307,6 +307,8 @@ describe('findings in general', () => {
       'BREAK_IN',
       'INTERCOM_SOUNDS_SEVERAL',
       'PRIVATE_LEAD_SHARED',
+      'LINE_ON_CONTROL_LEAD',
+      'RINGING_OVER_JOINED_LINES',
     ]);
   });
 

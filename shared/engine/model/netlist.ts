@@ -153,88 +153,123 @@ export function getNetlist(plan: Plan): Netlist {
   return nl;
 }
 
-export function buildNetlist(plan: Plan): Netlist {
-  const parts: PartInfo[] = [];
-  const partById = new Map<string, PartInfo>();
-  const addPart = (
-    id: string,
-    name: string,
-    kind: PartKind,
-    template: PartTemplate | undefined,
-  ): PartInfo => {
-    const p: PartInfo = { index: parts.length, id, name, kind, template, setIndex: -1, servesSet: -1 };
-    parts.push(p);
-    if (!partById.has(id)) partById.set(id, p);
-    return p;
-  };
+/** What the phases of buildNetlist fill in: parts, terminals, wires, contacts and loads, in creation order. */
+interface Builder {
+  parts: PartInfo[];
+  partById: Map<string, PartInfo>;
+  terminals: TerminalInfo[];
+  terminalIndex: Map<string, number>;
+  /** Per part and port: terminal id of each connector pin, -1 until asked for. */
+  pinIds: (Map<string, Int32Array> | undefined)[];
+  edges: Edge[];
+  contactEdges: Edge[];
+  contacts: ContactInfo[];
+  elements: ElementInfo[];
+}
 
-  const terminals: TerminalInfo[] = [];
-  const terminalIndex = new Map<string, number>();
-  const term = (part: number, name: string): number => {
-    const key = `${part}|${name}`;
-    let id = terminalIndex.get(key);
-    if (id === undefined) {
-      id = terminals.length;
-      const info: TerminalInfo = { part, name };
-      const colon = name.lastIndexOf(':');
-      if (colon > 0) {
-        const pin = Number(name.slice(colon + 1));
-        if (Number.isInteger(pin) && pin >= 1 && pin <= PIN_COUNT) {
-          info.port = name.slice(0, colon);
-          info.pin = pin;
-          const { pair, conductor } = pinToPair(pin);
-          info.pair = pair;
-          info.conductor = conductor;
-        }
+interface KsuTerminals {
+  ksuPart: PartInfo;
+  gnd: number;
+  lines: LineInfo[];
+  stations: StationInfo[];
+}
+
+function newBuilder(): Builder {
+  return {
+    parts: [],
+    partById: new Map(),
+    terminals: [],
+    terminalIndex: new Map(),
+    pinIds: [],
+    edges: [],
+    contactEdges: [],
+    contacts: [],
+    elements: [],
+  };
+}
+
+function addPart(
+  b: Builder,
+  id: string,
+  name: string,
+  kind: PartKind,
+  template: PartTemplate | undefined,
+): PartInfo {
+  const p: PartInfo = { index: b.parts.length, id, name, kind, template, setIndex: -1, servesSet: -1 };
+  b.parts.push(p);
+  if (!b.partById.has(id)) b.partById.set(id, p);
+  return p;
+}
+
+/** A part's terminal by name, made on first use; "port:pin" names are connector pins and carry their pair. */
+function term(b: Builder, part: number, name: string): number {
+  const key = `${part}|${name}`;
+  let id = b.terminalIndex.get(key);
+  if (id === undefined) {
+    id = b.terminals.length;
+    const info: TerminalInfo = { part, name };
+    const colon = name.lastIndexOf(':');
+    if (colon > 0) {
+      const pin = Number(name.slice(colon + 1));
+      if (Number.isInteger(pin) && pin >= 1 && pin <= PIN_COUNT) {
+        info.port = name.slice(0, colon);
+        info.pin = pin;
+        const { pair, conductor } = pinToPair(pin);
+        info.pair = pair;
+        info.conductor = conductor;
       }
-      terminals.push(info);
-      terminalIndex.set(key, id);
     }
-    return id;
-  };
-  // Connector pins are asked for often (every cable, bridge and lead): their ids are kept per part and port.
-  const pinIds: (Map<string, Int32Array> | undefined)[] = [];
-  const pinTerm = (part: number, port: string, pin: number): number => {
-    if (!(pin >= 1 && pin <= PIN_COUNT)) return term(part, `${port}:${pin}`);
-    const byPort = (pinIds[part] ??= new Map());
-    let ids = byPort.get(port);
-    if (!ids) {
-      ids = new Int32Array(PIN_COUNT + 1).fill(-1);
-      byPort.set(port, ids);
-    }
-    if (ids[pin] < 0) ids[pin] = term(part, `${port}:${pin}`);
-    return ids[pin];
-  };
+    b.terminals.push(info);
+    b.terminalIndex.set(key, id);
+  }
+  return id;
+}
 
-  const edges: Edge[] = [];
-  const contactEdges: Edge[] = [];
-  const contacts: ContactInfo[] = [];
-  const elements: ElementInfo[] = [];
+/** Connector pins are asked for often (every cable, bridge and lead): their ids are kept per part and port. */
+function pinTerm(b: Builder, part: number, port: string, pin: number): number {
+  if (!(pin >= 1 && pin <= PIN_COUNT)) return term(b, part, `${port}:${pin}`);
+  const byPort = (b.pinIds[part] ??= new Map());
+  let ids = byPort.get(port);
+  if (!ids) {
+    ids = new Int32Array(PIN_COUNT + 1).fill(-1);
+    byPort.set(port, ids);
+  }
+  if (ids[pin] < 0) ids[pin] = term(b, part, `${port}:${pin}`);
+  return ids[pin];
+}
 
-  // KSU
-  const ksuPart = addPart(plan.ksu.id, plan.ksu.name, 'ksu', getTemplate('ksu'));
-  const gnd = term(ksuPart.index, 'GND');
+/** The KSU's own terminals first: ground, each line circuit's T/R/A/L and each station's buzzer output. */
+function addKsuTerminals(b: Builder, plan: Plan): KsuTerminals {
+  const ksuPart = addPart(b, plan.ksu.id, plan.ksu.name, 'ksu', getTemplate('ksu'));
+  const k = ksuPart.index;
+  const gnd = term(b, k, 'GND');
   const lines: LineInfo[] = plan.ksu.lines.map((l) => ({
     number: l.number,
     directoryNumber: l.directoryNumber,
-    t: term(ksuPart.index, `L${l.number}.T`),
-    r: term(ksuPart.index, `L${l.number}.R`),
-    a: term(ksuPart.index, `L${l.number}.A`),
-    l: term(ksuPart.index, `L${l.number}.L`),
+    t: term(b, k, `L${l.number}.T`),
+    r: term(b, k, `L${l.number}.R`),
+    a: term(b, k, `L${l.number}.A`),
+    l: term(b, k, `L${l.number}.L`),
   }));
-  const lineByNumber = new Map(lines.map((l) => [l.number, l]));
   const stations: StationInfo[] = plan.ksu.stations.map((s) => ({
     id: s.id,
     code: s.code,
-    t: term(ksuPart.index, `BZ.${s.id}.T`),
-    r: term(ksuPart.index, `BZ.${s.id}.R`),
+    t: term(b, k, `BZ.${s.id}.T`),
+    r: term(b, k, `BZ.${s.id}.R`),
   }));
-  const stationById = new Map(stations.map((s) => [s.id, s]));
+  return { ksuPart, gnd, lines, stations };
+}
+
+/** The KSU cross-connect: which line-circuit lead or buzzer output each pair of each station port carries. */
+function wireCrossConnect(b: Builder, plan: Plan, ksu: KsuTerminals): void {
+  const { ksuPart, gnd } = ksu;
+  const lineByNumber = new Map(ksu.lines.map((l) => [l.number, l]));
+  const stationById = new Map(ksu.stations.map((s) => [s.id, s]));
   for (const cc of effectiveCrossConnect(plan.ksu)) {
     if (cc.port > plan.ksu.ports) continue;
     const port = ksuPortName(cc.port);
-    const tipPin = pinTerm(ksuPart.index, port, pinOf(cc.pair, 'tip'));
-    const ringPin = pinTerm(ksuPart.index, port, pinOf(cc.pair, 'ring'));
+    const tipPin = pinTerm(b, ksuPart.index, port, pinOf(cc.pair, 'tip'));
+    const ringPin = pinTerm(b, ksuPart.index, port, pinOf(cc.pair, 'ring'));
     let tipTo: number;
     let ringTo: number;
     let what: string;
@@ -255,15 +290,17 @@ export function buildNetlist(plan: Plan): Netlist {
         [tipTo, ringTo, what] = [line.l, gnd, `line ${line.number} lamp L / LG`];
       else [tipTo, ringTo, what] = [line.a, line.l, `line ${line.number} A-lead and lamp lead`];
     }
-    edges.push({ a: tipPin, b: tipTo, kind: 'cross-connect', label: `cross-connect: ${what} (tip)` });
-    edges.push({ a: ringPin, b: ringTo, kind: 'cross-connect', label: `cross-connect: ${what} (ring)` });
+    b.edges.push({ a: tipPin, b: tipTo, kind: 'cross-connect', label: `cross-connect: ${what} (tip)` });
+    b.edges.push({ a: ringPin, b: ringTo, kind: 'cross-connect', label: `cross-connect: ${what} (ring)` });
   }
+}
 
-  // Sets first, so add-ons can find the set they serve.
+/** Set parts with their keys' lines, before any add-on, so an add-on can find the set it serves. */
+function addSets(b: Builder, plan: Plan): SetInfo[] {
   const sets: SetInfo[] = [];
   for (const s of plan.sets) {
     const tpl = getTemplate(s.template);
-    const p = addPart(s.id, s.name, 'set', tpl?.kind === 'set' ? tpl : undefined);
+    const p = addPart(b, s.id, s.name, 'set', tpl?.kind === 'set' ? tpl : undefined);
     p.setIndex = sets.length;
     const keyLine: number[] = [];
     let holdKey = 0;
@@ -285,10 +322,14 @@ export function buildNetlist(plan: Plan): Netlist {
       addOns: [],
     });
   }
-  const setById = new Map(sets.map((s) => [s.id, s]));
-  const addOnParts = plan.addOns.map((a) => {
+  return sets;
+}
+
+/** Add-on parts, each told which set it serves (its switch follows that set's hands-free state). */
+function addAddOns(b: Builder, plan: Plan, setById: Map<string, SetInfo>): PartInfo[] {
+  return plan.addOns.map((a) => {
     const tpl = getTemplate(a.template);
-    const p = addPart(a.id, a.name, 'add-on', tpl?.kind === 'add-on' ? tpl : undefined);
+    const p = addPart(b, a.id, a.name, 'add-on', tpl?.kind === 'add-on' ? tpl : undefined);
     const served = setById.get(a.serves);
     if (served) {
       p.servesSet = served.index;
@@ -296,131 +337,170 @@ export function buildNetlist(plan: Plan): Netlist {
     }
     return p;
   });
-  const adapterParts = plan.adapters.map((a) => {
-    const tpl = getTemplate(a.template);
-    return addPart(a.id, a.name, 'adapter', tpl?.kind === 'adapter' ? tpl : undefined);
-  });
+}
 
-  const wireTemplate = (
-    p: PartInfo,
-    changes: readonly LeadChange[],
-    ownerSet: number,
-    bridgedPairs?: number[],
-  ) => {
-    const tpl = p.template;
-    if (!tpl) return;
-    if (tpl.leadPort) {
-      const at = applyLeadChanges(tpl.leads, changes);
-      tpl.leads.forEach((lead, i) => {
-        const t = term(p.index, lead.terminal);
-        terminals[t].lead ??= lead;
-        const pair = at[i];
-        if (pair === null) return;
-        const pin = pinTerm(p.index, tpl.leadPort!, pinOf(pair, lead.conductor));
-        const moved = pair !== lead.pair ? ` (moved to pair ${pair}, ${pairColour(pair).name})` : '';
-        edges.push({ a: t, b: pin, kind: 'lead', label: `lead ${lead.designation}${moved}`, lead });
-      });
-    }
-    for (const group of tpl.bridges ?? []) {
-      const pairs = bridgedPairs ?? Array.from({ length: 25 }, (_, i) => i + 1);
-      for (const pair of pairs) {
-        for (const conductor of ['tip', 'ring'] as const) {
-          const pin = pinOf(pair, conductor);
-          const first = pinTerm(p.index, group[0], pin);
-          for (let g = 1; g < group.length; g++) {
-            edges.push({
-              a: first,
-              b: pinTerm(p.index, group[g], pin),
-              kind: 'bridge',
-              label: `bridged inside ${p.name}`,
-            });
-          }
+function addAdapters(b: Builder, plan: Plan): PartInfo[] {
+  return plan.adapters.map((a) => {
+    const tpl = getTemplate(a.template);
+    return addPart(b, a.id, a.name, 'adapter', tpl?.kind === 'adapter' ? tpl : undefined);
+  });
+}
+
+/** Each lead from its terminal to the cord pin where the part's lead changes leave it (lifted leads: no wire). */
+function wireLeads(b: Builder, p: PartInfo, tpl: PartTemplate, changes: readonly LeadChange[]): void {
+  if (!tpl.leadPort) return;
+  const at = applyLeadChanges(tpl.leads, changes);
+  tpl.leads.forEach((lead, i) => {
+    const t = term(b, p.index, lead.terminal);
+    b.terminals[t].lead ??= lead;
+    const pair = at[i];
+    if (pair === null) return;
+    const pin = pinTerm(b, p.index, tpl.leadPort!, pinOf(pair, lead.conductor));
+    const moved = pair !== lead.pair ? ` (moved to pair ${pair}, ${pairColour(pair).name})` : '';
+    b.edges.push({ a: t, b: pin, kind: 'lead', label: `lead ${lead.designation}${moved}`, lead });
+  });
+}
+
+/** Ports an adapter (or an add-on's pass-through) parallels pin for pin; an adapter may bridge only some pairs. */
+function wireBridges(b: Builder, p: PartInfo, tpl: PartTemplate, bridgedPairs?: number[]): void {
+  for (const group of tpl.bridges ?? []) {
+    const pairs = bridgedPairs ?? Array.from({ length: 25 }, (_, i) => i + 1);
+    for (const pair of pairs) {
+      for (const conductor of ['tip', 'ring'] as const) {
+        const pin = pinOf(pair, conductor);
+        const first = pinTerm(b, p.index, group[0], pin);
+        for (let g = 1; g < group.length; g++) {
+          b.edges.push({
+            a: first,
+            b: pinTerm(b, p.index, group[g], pin),
+            kind: 'bridge',
+            label: `bridged inside ${p.name}`,
+          });
         }
       }
     }
-    for (const c of tpl.contacts) {
-      const a = term(p.index, c.a);
-      const b = term(p.index, c.b);
-      const when = c.when;
-      const cond =
-        typeof when === 'object'
-          ? COND_KEY
-          : when === 'offHook'
-            ? COND_OFF_HOOK
-            : when === 'notHoldPressed'
-              ? COND_NOT_HOLD
-              : COND_HANDS_FREE;
-      const index = contacts.length;
-      contacts.push({
-        a,
-        b,
-        cond,
-        mech: ownerSet,
-        key: typeof when === 'object' ? when.key : 0,
-        part: p.index,
-        label: c.label,
-      });
-      contactEdges.push({ a, b, kind: 'contact', label: c.label, contact: index });
-    }
-    for (const e of tpl.elements) {
-      elements.push({
-        kind: e.kind,
-        a: term(p.index, e.a),
-        b: term(p.index, e.b),
-        part: p.index,
-        owner: ownerSet,
-        key: e.key,
-        label: e.label,
-      });
-    }
-  };
+  }
+}
 
+function conditionCode(when: PartTemplate['contacts'][number]['when']): number {
+  if (typeof when === 'object') return COND_KEY;
+  if (when === 'offHook') return COND_OFF_HOOK;
+  return when === 'notHoldPressed' ? COND_NOT_HOLD : COND_HANDS_FREE;
+}
+
+/** Contacts, with the set whose keys, hookswitch or hands-free switch close them; kept apart, they go last. */
+function addContacts(b: Builder, p: PartInfo, tpl: PartTemplate, ownerSet: number): void {
+  for (const c of tpl.contacts) {
+    const a = term(b, p.index, c.a);
+    const z = term(b, p.index, c.b);
+    const index = b.contacts.length;
+    b.contacts.push({
+      a,
+      b: z,
+      cond: conditionCode(c.when),
+      mech: ownerSet,
+      key: typeof c.when === 'object' ? c.when.key : 0,
+      part: p.index,
+      label: c.label,
+    });
+    b.contactEdges.push({ a, b: z, kind: 'contact', label: c.label, contact: index });
+  }
+}
+
+/** Loads (networks, lamps, buzzers), owned by the set whose user hears or sees them. */
+function addElements(b: Builder, p: PartInfo, tpl: PartTemplate, ownerSet: number): void {
+  for (const e of tpl.elements) {
+    b.elements.push({
+      kind: e.kind,
+      a: term(b, p.index, e.a),
+      b: term(b, p.index, e.b),
+      part: p.index,
+      owner: ownerSet,
+      key: e.key,
+      label: e.label,
+    });
+  }
+}
+
+/** One part's template in place: leads (lead changes applied), bridges, contacts, loads, in that order. */
+function wirePart(
+  b: Builder,
+  p: PartInfo,
+  changes: readonly LeadChange[],
+  ownerSet: number,
+  bridgedPairs?: number[],
+): void {
+  const tpl = p.template;
+  if (!tpl) return;
+  wireLeads(b, p, tpl, changes);
+  wireBridges(b, p, tpl, bridgedPairs);
+  addContacts(b, p, tpl, ownerSet);
+  addElements(b, p, tpl, ownerSet);
+}
+
+/** A set's ringers: one load per line the plan straps it to, across that line's strap terminals. */
+function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly number[]): void {
+  for (const line of ringerLines) {
+    const strap = p.template?.ringerStraps?.find((r) => r.line === line);
+    if (!strap) continue;
+    b.elements.push({
+      kind: 'ringer',
+      a: term(b, p.index, strap.tip),
+      b: term(b, p.index, strap.ring),
+      part: p.index,
+      owner: set.index,
+      line,
+      label: `Ringer strapped to line ${line}`,
+    });
+  }
+}
+
+/** Every part's wiring: sets (then their ringers), add-ons, adapters, in plan order. */
+function wireParts(
+  b: Builder,
+  plan: Plan,
+  sets: SetInfo[],
+  addOnParts: PartInfo[],
+  adapterParts: PartInfo[],
+) {
   plan.sets.forEach((s, i) => {
     const info = sets[i];
-    const p = parts[info.part];
-    wireTemplate(p, s.leadChanges, info.index);
-    for (const line of s.ringerLines) {
-      const strap = p.template?.ringerStraps?.find((r) => r.line === line);
-      if (!strap) continue;
-      elements.push({
-        kind: 'ringer',
-        a: term(p.index, strap.tip),
-        b: term(p.index, strap.ring),
-        part: p.index,
-        owner: info.index,
-        line,
-        label: `Ringer strapped to line ${line}`,
-      });
-    }
+    const p = b.parts[info.part];
+    wirePart(b, p, s.leadChanges, info.index);
+    addRingers(b, p, info, s.ringerLines);
   });
-  plan.addOns.forEach((a, i) => wireTemplate(addOnParts[i], a.leadChanges, addOnParts[i].servesSet));
-  plan.adapters.forEach((a, i) => wireTemplate(adapterParts[i], [], -1, a.bridgedPairs));
+  plan.addOns.forEach((a, i) => wirePart(b, addOnParts[i], a.leadChanges, addOnParts[i].servesSet));
+  plan.adapters.forEach((a, i) => wirePart(b, adapterParts[i], [], -1, a.bridgedPairs));
+}
 
-  // Cables: pin for pin.
-  const portExists = (part: PartInfo, port: string): boolean => {
-    if (part.kind === 'ksu') {
-      const m = /^port-(\d+)$/.exec(port);
-      return !!m && Number(m[1]) >= 1 && Number(m[1]) <= plan.ksu.ports;
-    }
-    return !!part.template?.ports.some((pt) => pt.name === port);
-  };
+function portExists(plan: Plan, part: PartInfo, port: string): boolean {
+  if (part.kind === 'ksu') {
+    const m = /^port-(\d+)$/.exec(port);
+    return !!m && Number(m[1]) >= 1 && Number(m[1]) <= plan.ksu.ports;
+  }
+  return !!part.template?.ports.some((pt) => pt.name === port);
+}
+
+/** Cables: pin for pin between two existing ports (a cable to a missing part or port carries nothing). */
+function wireCables(b: Builder, plan: Plan): void {
   for (const c of plan.cables) {
-    const from = partById.get(c.from.part);
-    const to = partById.get(c.to.part);
-    if (!from || !to || !portExists(from, c.from.port) || !portExists(to, c.to.port)) continue;
+    const from = b.partById.get(c.from.part);
+    const to = b.partById.get(c.to.part);
+    if (!from || !to || !portExists(plan, from, c.from.port) || !portExists(plan, to, c.to.port)) continue;
     for (let pin = 1; pin <= PIN_COUNT; pin++) {
-      edges.push({
-        a: pinTerm(from.index, c.from.port, pin),
-        b: pinTerm(to.index, c.to.port, pin),
+      b.edges.push({
+        a: pinTerm(b, from.index, c.from.port, pin),
+        b: pinTerm(b, to.index, c.to.port, pin),
         kind: 'cable',
         label: `cable ${c.label || c.id}`,
         cable: c.id,
       });
     }
   }
+}
 
-  // Static connectivity over wires only.
-  const n = terminals.length;
+/** Wires never change with the state, so their connectivity is solved once: terminal → static root. */
+function staticComponents(n: number, edges: readonly Edge[]): Int32Array {
   const parent = new Int32Array(n);
   for (let i = 0; i < n; i++) parent[i] = i;
   for (const e of edges) {
@@ -430,8 +510,19 @@ export function buildNetlist(plan: Plan): Netlist {
   }
   const staticRoot = new Int32Array(n);
   for (let i = 0; i < n; i++) staticRoot[i] = find(parent, i);
+  return staticRoot;
+}
 
-  // Dense ids for the components the state can change or the observations read.
+/**
+ * Dense ids for the static components the state can change or the observations read (KSU leads, loads, contact
+ * ends), and the contacts that can join two of them, as flat arrays for the per-state union (nets.ts).
+ */
+function denseComponents(
+  b: Builder,
+  ksu: KsuTerminals,
+  staticRoot: Int32Array,
+): Pick<Netlist, 'dense' | 'denseCount' | 'hot'> {
+  const n = b.terminals.length;
   const dense = new Int32Array(n).fill(-1);
   const rootDense = new Map<number, number>();
   const mark = (t: number): number => {
@@ -444,46 +535,60 @@ export function buildNetlist(plan: Plan): Netlist {
     dense[t] = d;
     return d;
   };
-  mark(gnd);
-  for (const l of lines) [l.t, l.r, l.a, l.l].forEach(mark);
-  for (const s of stations) [s.t, s.r].forEach(mark);
-  for (const e of elements) [e.a, e.b].forEach(mark);
+  mark(ksu.gnd);
+  for (const l of ksu.lines) [l.t, l.r, l.a, l.l].forEach(mark);
+  for (const s of ksu.stations) [s.t, s.r].forEach(mark);
+  for (const e of b.elements) [e.a, e.b].forEach(mark);
   const hotList: ContactInfo[] = [];
-  for (const c of contacts) {
+  for (const c of b.contacts) {
     const da = mark(c.a);
     const db = mark(c.b);
     if (da !== db && c.mech >= 0) hotList.push(c);
   }
   for (let i = 0; i < n; i++)
     if (dense[i] < 0 && rootDense.has(staticRoot[i])) dense[i] = rootDense.get(staticRoot[i])!;
-  const count = hotList.length;
   const hot = {
     ca: Int32Array.from(hotList, (c) => dense[c.a]),
     cb: Int32Array.from(hotList, (c) => dense[c.b]),
     cond: Int32Array.from(hotList, (c) => c.cond),
     mech: Int32Array.from(hotList, (c) => c.mech),
     key: Int32Array.from(hotList, (c) => c.key),
-    count,
+    count: hotList.length,
   };
+  return { dense, denseCount: rootDense.size, hot };
+}
 
+/** The phases in the order terminals and edges are made (ids and edge order follow it, and so do paths). */
+export function buildNetlist(plan: Plan): Netlist {
+  const b = newBuilder();
+  const ksu = addKsuTerminals(b, plan);
+  wireCrossConnect(b, plan, ksu);
+  const sets = addSets(b, plan);
+  const setById = new Map(sets.map((s) => [s.id, s]));
+  const addOnParts = addAddOns(b, plan, setById);
+  const adapterParts = addAdapters(b, plan);
+  wireParts(b, plan, sets, addOnParts, adapterParts);
+  wireCables(b, plan);
+  const staticRoot = staticComponents(b.terminals.length, b.edges);
+  const { dense, denseCount, hot } = denseComponents(b, ksu, staticRoot);
   return {
     plan,
-    parts,
-    partById,
+    parts: b.parts,
+    partById: b.partById,
     sets,
     setById,
-    lines,
-    stations,
-    gnd,
-    terminals,
-    edges: edges.concat(contactEdges),
-    contacts,
-    elements,
+    lines: ksu.lines,
+    stations: ksu.stations,
+    gnd: ksu.gnd,
+    terminals: b.terminals,
+    edges: b.edges.concat(b.contactEdges),
+    contacts: b.contacts,
+    elements: b.elements,
     staticRoot,
     dense,
-    denseCount: rootDense.size,
+    denseCount,
     hot,
-    work: new Int32Array(rootDense.size),
-    terminalIndex,
+    work: new Int32Array(denseCount),
+    terminalIndex: b.terminalIndex,
   };
 }

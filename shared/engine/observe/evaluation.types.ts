@@ -56,6 +56,8 @@ export const FINDING_CODES = [
   'BREAK_IN',
   'INTERCOM_SOUNDS_SEVERAL',
   'PRIVATE_LEAD_SHARED',
+  'LINE_ON_CONTROL_LEAD',
+  'RINGING_OVER_JOINED_LINES',
 ] as const;
 
 export type FindingCode = (typeof FINDING_CODES)[number];
@@ -69,6 +71,8 @@ export const FINDING_TITLES: Readonly<Record<FindingCode, string>> = {
   BREAK_IN: 'Break-in on a call',
   INTERCOM_SOUNDS_SEVERAL: 'Intercom call buzzes several sets',
   PRIVATE_LEAD_SHARED: "Set's private leads shared",
+  LINE_ON_CONTROL_LEAD: 'Line on a lamp lead, A-lead or ground',
+  RINGING_OVER_JOINED_LINES: 'Ringing reaches a joined line',
 };
 
 /** One step along a conductor path. */

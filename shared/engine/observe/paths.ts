@@ -435,7 +435,18 @@ export function crossingSentence(c: Crossing): string {
 
 /** The first lead by which the path enters a set or add-on from its cord: "Front's A-lead control (AC) on pair 25 (violet-slate)". */
 export function firstUnitLeadSentence(nl: Netlist, path: TerminalPath): string | null {
-  for (let i = 0; i < path.edges.length; i++) {
+  return unitLeadSentence(nl, path, false);
+}
+
+/** The last lead on the path, by which it leaves the last set or add-on it passes for its cord. */
+export function lastUnitLeadSentence(nl: Netlist, path: TerminalPath): string | null {
+  return unitLeadSentence(nl, path, true);
+}
+
+function unitLeadSentence(nl: Netlist, path: TerminalPath, last: boolean): string | null {
+  const n = path.edges.length;
+  for (let k = 0; k < n; k++) {
+    const i = last ? n - 1 - k : k;
     const e = nl.edges[path.edges[i]];
     if (e.kind !== 'lead' || !e.lead) continue;
     const pinTerm = nl.terminals[path.terms[i]].pin !== undefined ? path.terms[i] : path.terms[i + 1];

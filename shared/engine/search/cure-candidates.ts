@@ -187,7 +187,11 @@ export function moveCandidates(plan: Plan, setId: string, ports: number[]): Cand
   return out;
 }
 
-/** Candidates for clearing one problem, taken from its conductor path or, for required functions, its sets. */
+/**
+ * Candidates for clearing one problem, taken from its conductor path or, for required functions, its sets. Every
+ * finding with a path (joined lines, a line on a control lead, ringing over joined lines, …) gets the lifts of the
+ * set and add-on leads on it; the intercom finding also gets buzzer moves.
+ */
 export function candidatesFor(plan: Plan, problem: Problem, ports: number[]): Candidate[] {
   const out: Candidate[] = [];
   const isPart = (id: string) => findLeadPart(plan, id) !== undefined;

@@ -1,8 +1,12 @@
-/** Findings that hold in every state: how the leads are wired, whatever the keys and hookswitches do. */
-import { pairColour } from '../document/cable-code';
-import type { Netlist, PartInfo } from '../model/netlist';
-import type { Finding } from './evaluation.types';
-import { findPath, firstCrossing, crossingSentence, toHops } from './paths';
+/**
+ * A set's private leads (its own circuits for its own add-on) paralleled with another part's leads or the KSU's
+ * cross-connect: wiring that is wrong in every state, whatever the keys and hookswitches do.
+ */
+import { pairColour } from '../../document/cable-code';
+import type { Netlist, PartInfo } from '../../model/netlist';
+import type { Finding } from '../evaluation.types';
+import { findPath, firstCrossing, crossingSentence, toHops } from '../paths';
+import type { WiringRule } from '../rule.types';
 
 interface Shared {
   owner: PartInfo;
@@ -11,8 +15,6 @@ interface Shared {
   from: number;
   to: number;
 }
-
-const cache = new WeakMap<Netlist, { plain: Finding[]; withPaths?: Finding[] }>();
 
 /** May `a`'s private leads meet `b`? Only a set and the add-ons serving it (and add-ons of one set) may. */
 function partners(a: PartInfo, b: PartInfo): boolean {
@@ -67,17 +69,6 @@ function collect(nl: Netlist): Shared[] {
   return [...found.values()];
 }
 
-export function staticFindings(nl: Netlist, withPaths: boolean): Finding[] {
-  let entry = cache.get(nl);
-  if (!entry) {
-    entry = { plain: build(nl, false) };
-    cache.set(nl, entry);
-  }
-  if (!withPaths) return entry.plain;
-  entry.withPaths ??= build(nl, true);
-  return entry.withPaths;
-}
-
 function build(nl: Netlist, withPaths: boolean): Finding[] {
   return collect(nl).map((s) => {
     const pairs = s.pairs.sort((a, b) => a - b);
@@ -101,3 +92,9 @@ function build(nl: Netlist, withPaths: boolean): Finding[] {
     } satisfies Finding;
   });
 }
+
+export const privateLeadShared: WiringRule<'PRIVATE_LEAD_SHARED'> = {
+  kind: 'wiring',
+  code: 'PRIVATE_LEAD_SHARED',
+  find: build,
+};

@@ -1,0 +1,321 @@
+/** Observations of one state: per line (status, A-lead, loop, lamp, far end, joins), per set, per station. */
+import type { NetFacts } from '../model/facts';
+import type { Netlist } from '../model/netlist';
+import type { Mech } from '../model/nets';
+import type { FarPhase, LineState, SimState } from '../sim/state.schema';
+import type {
+  Cadence,
+  LineObservation,
+  LineStatus,
+  SetObservation,
+  StationObservation,
+  ToneName,
+} from './evaluation.types';
+import type { LineFacts } from './rule.types';
+import { strongestCadence } from './signals';
+
+const TONE_OF_PHASE: Partial<Record<FarPhase, ToneName>> = {
+  'dial-tone': 'dial',
+  ringback: 'ringback',
+  busy: 'busy',
+  reorder: 'reorder',
+  talking: 'voice',
+  answered: 'voice',
+};
+
+interface Layout {
+  /** Per set: element index of the lamp of each key index. */
+  lampOf: number[][];
+  /** Per station: ids of the sets assigned to it. */
+  assigned: string[][];
+  /** Per set: element indices of the speech networks it hears through, in element order. */
+  networksOf: number[][];
+}
+
+const layouts = new WeakMap<Netlist, Layout>();
+
+/** Where each set's lamps and networks are among the elements, and who answers each station: once per netlist. */
+export function layoutOf(nl: Netlist): Layout {
+  let layout = layouts.get(nl);
+  if (!layout) {
+    const lampOf: number[][] = nl.sets.map(() => []);
+    nl.elements.forEach((e, k) => {
+      if (e.kind === 'lamp' && e.owner >= 0 && e.key !== undefined) lampOf[e.owner][e.key] = k;
+    });
+    const assigned = nl.stations.map((st) => nl.sets.filter((s) => s.station === st.id).map((s) => s.id));
+    const networksOf: number[][] = nl.sets.map(() => []);
+    nl.elements.forEach((e, k) => {
+      if (e.kind === 'network' && e.owner >= 0) networksOf[e.owner].push(k);
+    });
+    layout = { lampOf, assigned, networksOf };
+    layouts.set(nl, layout);
+  }
+  return layout;
+}
+
+/** Per line index: the state's line, if the state names it. */
+export function lineStatesOf(nl: Netlist, state: SimState): (LineState | undefined)[] {
+  const out: (LineState | undefined)[] = new Array(nl.lines.length);
+  for (let i = 0; i < nl.lines.length; i++) {
+    const n = nl.lines[i].number;
+    out[i] = undefined;
+    for (const ls of state.lines) {
+      if (ls.line === n) {
+        out[i] = ls;
+        break;
+      }
+    }
+  }
+  return out;
+}
+
+export function lineStatus(
+  facts: NetFacts,
+  lineStates: readonly (LineState | undefined)[],
+  i: number,
+): LineStatus {
+  const ls = lineStates[i];
+  if (facts.aClosed[i]) return 'in-use';
+  if (ls?.circuit === 'held') return 'held';
+  if (ls?.ringing || ringingLineJoined(facts, lineStates, i) >= 0) return 'ringing';
+  return 'idle';
+}
+
+/**
+ * A ringing line whose talk pair is joined to line i's (both conductors, either way round), or -1: its ringing
+ * current reaches line i's ringers and line circuit, which sees ringing and flashes the lamps (common practice).
+ */
+export function ringingLineJoined(
+  facts: NetFacts,
+  lineStates: readonly (LineState | undefined)[],
+  i: number,
+): number {
+  const { rootT, rootR } = facts;
+  const t = rootT[i];
+  const r = rootR[i];
+  if (t === r) return -1; // a shorted pair rings nothing
+  for (let j = 0; j < rootT.length; j++) {
+    if (j === i || !lineStates[j]?.ringing) continue;
+    if ((rootT[j] === t && rootR[j] === r) || (rootT[j] === r && rootR[j] === t)) return j;
+  }
+  return -1;
+}
+
+function lineCadence(status: LineStatus): Cadence {
+  return status === 'in-use'
+    ? 'steady'
+    : status === 'held'
+      ? 'wink'
+      : status === 'ringing'
+        ? 'flash'
+        : 'dark';
+}
+
+/** Lines joined to line i: same tip net or same ring net. */
+export function joinedLines(nl: Netlist, facts: NetFacts, i: number): number[] {
+  const joinedWith: number[] = [];
+  for (let j = 0; j < nl.lines.length; j++) {
+    if (i !== j && (facts.rootT[i] === facts.rootT[j] || facts.rootR[i] === facts.rootR[j])) {
+      joinedWith.push(nl.lines[j].number);
+    }
+  }
+  return joinedWith;
+}
+
+/** The per-line facts the findings need, without observing sets; joins only when asked (events never change them). */
+export function lineFacts(
+  nl: Netlist,
+  facts: NetFacts,
+  lineStates: readonly (LineState | undefined)[],
+  withJoins: boolean,
+): LineFacts[] {
+  const lines: LineFacts[] = new Array(nl.lines.length);
+  for (let i = 0; i < nl.lines.length; i++) {
+    lines[i] = {
+      line: nl.lines[i].number,
+      status: lineStatus(facts, lineStates, i),
+      aClosed: facts.aClosed[i],
+      far: lineStates[i]?.far.phase ?? 'idle',
+      joinedWith: withJoins ? joinedLines(nl, facts, i) : [],
+    };
+  }
+  return lines;
+}
+
+export function observeLines(
+  nl: Netlist,
+  facts: NetFacts,
+  lineStates: readonly (LineState | undefined)[],
+): LineObservation[] {
+  const lines: LineObservation[] = new Array(nl.lines.length);
+  for (let i = 0; i < nl.lines.length; i++) {
+    const status = lineStatus(facts, lineStates, i);
+    const setsOn: string[] = [];
+    for (const s of facts.setsOn[i]) setsOn.push(nl.sets[s].id);
+    lines[i] = {
+      line: nl.lines[i].number,
+      status,
+      aClosed: facts.aClosed[i],
+      loopClosed: facts.networkLoop[i] || status === 'held',
+      setsOn,
+      lamp: lineCadence(status),
+      far: lineStates[i]?.far.phase ?? 'idle',
+      joinedWith: joinedLines(nl, facts, i),
+    };
+  }
+  return lines;
+}
+
+/** The station an intercom call drives, if any. */
+function drivenStation(nl: Netlist, state: SimState) {
+  const calling = state.intercom.calling;
+  return calling ? nl.stations.find((st) => st.id === calling) : undefined;
+}
+
+/** Per set: its buzzer is across the called station's buzzer output (and not shorted). */
+export function buzzersOn(nl: Netlist, state: SimState, facts: NetFacts): boolean[] {
+  const on: boolean[] = new Array(nl.sets.length).fill(false);
+  const driven = drivenStation(nl, state);
+  if (!driven) return on;
+  const roots = facts.roots;
+  const d = nl.dense;
+  const t = roots[d[driven.t]];
+  const r = roots[d[driven.r]];
+  for (const e of nl.elements) {
+    if (e.kind !== 'buzzer' || e.owner < 0) continue;
+    const ra = roots[d[e.a]];
+    const rb = roots[d[e.b]];
+    if (ra !== rb && ((ra === t && rb === r) || (ra === r && rb === t))) on[e.owner] = true;
+  }
+  return on;
+}
+
+/** What the loads do: ringers across a ringing line, lamps across a line's lamp lead and ground, buzzers. */
+interface Loads {
+  ringerOn: boolean[];
+  buzzerOn: boolean[];
+  /** Per element index, for lamps: cadence and the lines whose lamp leads reach it. */
+  lampCadence: Cadence[];
+  lampLines: number[][];
+}
+
+function observeLoads(
+  nl: Netlist,
+  state: SimState,
+  facts: NetFacts,
+  lineStates: readonly (LineState | undefined)[],
+  lines: readonly LineObservation[],
+): Loads {
+  const roots = facts.roots;
+  const d = nl.dense;
+  const nLines = nl.lines.length;
+  const driven = drivenStation(nl, state);
+  const drivenT = driven ? roots[d[driven.t]] : -1;
+  const drivenR = driven ? roots[d[driven.r]] : -1;
+  const nSets = nl.sets.length;
+  const ringerOn: boolean[] = new Array(nSets).fill(false);
+  const buzzerOn: boolean[] = new Array(nSets).fill(false);
+  const lampCadence: Cadence[] = new Array(nl.elements.length);
+  const lampLines: number[][] = new Array(nl.elements.length);
+  for (let k = 0; k < nl.elements.length; k++) {
+    const e = nl.elements[k];
+    if (e.owner < 0) continue;
+    const ra = roots[d[e.a]];
+    const rb = roots[d[e.b]];
+    if (ra === rb) continue; // a shorted load never sounds or lights
+    if (e.kind === 'buzzer') {
+      if (driven && ((ra === drivenT && rb === drivenR) || (ra === drivenR && rb === drivenT)))
+        buzzerOn[e.owner] = true;
+    } else if (e.kind === 'ringer') {
+      for (let i = 0; i < nLines; i++) {
+        const x = facts.rootT[i];
+        const y = facts.rootR[i];
+        if (lineStates[i]?.ringing && ((ra === x && rb === y) || (ra === y && rb === x)))
+          ringerOn[e.owner] = true;
+      }
+    } else if (e.kind === 'lamp') {
+      let lamp: Cadence = 'dark';
+      const lit: number[] = [];
+      const g = facts.gnd;
+      for (let i = 0; i < nLines; i++) {
+        const x = facts.rootL[i];
+        if ((ra === x && rb === g) || (ra === g && rb === x)) {
+          lit.push(nl.lines[i].number);
+          lamp = strongestCadence(lamp, lines[i].lamp);
+        }
+      }
+      lampCadence[k] = lamp;
+      lampLines[k] = lit;
+    }
+  }
+  return { ringerOn, buzzerOn, lampCadence, lampLines };
+}
+
+export function observeSets(
+  nl: Netlist,
+  state: SimState,
+  mech: Mech,
+  facts: NetFacts,
+  lineStates: readonly (LineState | undefined)[],
+  lines: readonly LineObservation[],
+): { sets: SetObservation[]; buzzerOn: boolean[] } {
+  const layout = layoutOf(nl);
+  const { ringerOn, buzzerOn, lampCadence, lampLines } = observeLoads(nl, state, facts, lineStates, lines);
+  const sets: SetObservation[] = new Array(nl.sets.length);
+  for (let si = 0; si < nl.sets.length; si++) {
+    const s = nl.sets[si];
+    const hears: number[] = [];
+    const tones: { tone: ToneName; line: number }[] = [];
+    for (const i of facts.hears[si]) {
+      const number = nl.lines[i].number;
+      hears.push(number);
+      const tone = TONE_OF_PHASE[lineStates[i]?.far.phase ?? 'idle'];
+      if (tone) tones.push({ tone, line: number });
+    }
+    const keySpecs = s.template?.keys ?? [];
+    const keys: SetObservation['keys'] = new Array(keySpecs.length);
+    for (let k = 0; k < keySpecs.length; k++) {
+      const spec = keySpecs[k];
+      const el = layout.lampOf[si][spec.index] ?? -1;
+      keys[k] = {
+        index: spec.index,
+        label: spec.label,
+        lamp: el >= 0 ? (lampCadence[el] ?? 'dark') : 'dark',
+        lines: el >= 0 ? (lampLines[el] ?? []) : [],
+      };
+    }
+    sets[si] = {
+      set: s.id,
+      offHook: mech.offHook[si] === 1,
+      pressedKey: mech.pressedKey[si] || null,
+      handsFreeOn: mech.handsFreeOn[si] === 1,
+      keys,
+      hears,
+      tones,
+      buzzer: buzzerOn[si],
+      ringer: ringerOn[si],
+    };
+  }
+  return { sets, buzzerOn };
+}
+
+export function observeStations(
+  nl: Netlist,
+  state: SimState,
+  buzzerOn: readonly boolean[],
+): StationObservation[] {
+  const layout = layoutOf(nl);
+  const calling = state.intercom.calling;
+  return nl.stations.map((st, i) => {
+    const buzzing: string[] = [];
+    if (st.id === calling)
+      for (let si = 0; si < nl.sets.length; si++) if (buzzerOn[si]) buzzing.push(nl.sets[si].id);
+    return {
+      station: st.id,
+      code: st.code,
+      calling: st.id === calling,
+      buzzing,
+      assigned: layout.assigned[i].slice(),
+    };
+  });
+}

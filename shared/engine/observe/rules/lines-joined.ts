@@ -1,0 +1,39 @@
+/** Two lines on one tip or ring net: one finding per group of joined lines, with the path between their tips. */
+import { listWords } from '../../document/words';
+import { hopsOf, joinSentence, latchedOn, pathIn } from '../rule-helpers';
+import type { StateRule } from '../rule.types';
+
+export const linesJoined: StateRule<'LINES_JOINED'> = {
+  kind: 'state',
+  code: 'LINES_JOINED',
+  fires: { position: true, event: false },
+  find(f, out) {
+    const { nl, facts, finder } = f;
+    const seen = new Set<number>();
+    f.lines.forEach((obs, i) => {
+      if (!obs.joinedWith.length || seen.has(obs.line)) return;
+      const group = [obs.line, ...obs.joinedWith].sort((a, b) => a - b);
+      group.forEach((n) => seen.add(n));
+      const involved = latchedOn(f, group);
+      const j = nl.lines.findIndex((l) => l.number === group.find((n) => n !== obs.line));
+      const sameTip = facts.rootT[i] === facts.rootT[j];
+      const p = pathIn(
+        finder,
+        sameTip ? nl.lines[i].t : nl.lines[i].r,
+        sameTip ? nl.lines[j].t : nl.lines[j].r,
+      );
+      const how =
+        joinSentence(nl, p) ??
+        (involved.length ? ` through ${involved.map((s) => s.name).join(' and ')}` : '');
+      out.push({
+        code: 'LINES_JOINED',
+        severity: 'fault',
+        sets: involved.map((s) => s.id),
+        lines: group,
+        stations: [],
+        message: `Lines ${listWords(group)} are joined${how}.`,
+        path: hopsOf(finder, p),
+      });
+    });
+  },
+};

@@ -1,0 +1,37 @@
+/** A set's speech network on a line its keys did not select. */
+import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
+import type { StateRule } from '../rule.types';
+
+export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
+  kind: 'state',
+  code: 'SET_HEARS_UNSELECTED_LINE',
+  fires: { position: true, event: false },
+  bySet: true,
+  find(f, out) {
+    const { nl, mech, facts, finder } = f;
+    for (const s of nl.sets) {
+      const heard = facts.hears[s.index];
+      if (!heard.length) continue;
+      const selected = f.selected[s.index];
+      const networkTip = finder ? networkTerminal(f, s.index) : -1;
+      for (const i of heard) {
+        const line = nl.lines[i].number;
+        if (selected.includes(line)) continue;
+        const p = networkTip >= 0 ? pathIn(finder, nl.lines[i].t, networkTip) : null;
+        const keyText =
+          mech.pressedKey[s.index] > 0
+            ? `with line key ${selected.join(', ')} down`
+            : 'with no line key down';
+        out.push({
+          code: 'SET_HEARS_UNSELECTED_LINE',
+          severity: 'fault',
+          sets: [s.id],
+          lines: [line],
+          stations: [],
+          message: `${s.name} hears line ${line} ${keyText}${p ? describeVia(f, p) : ''}.`,
+          path: hopsOf(finder, p),
+        });
+      }
+    }
+  },
+};
