@@ -10,6 +10,7 @@ import { getTemplate, ksuPortName } from '../templates/part-templates';
 import type { ElementKind, LeadSpec, PartKind, PartTemplate } from '../templates/template.types';
 import { effectiveCrossConnect } from './cross-connect';
 import { applyLeadChanges } from './lead-changes';
+import { cableWires } from './cable-faults';
 
 export interface PartInfo {
   index: number;
@@ -408,12 +409,13 @@ export function buildNetlist(plan: Plan): Netlist {
     const from = partById.get(c.from.part);
     const to = partById.get(c.to.part);
     if (!from || !to || !portExists(from, c.from.port) || !portExists(to, c.to.port)) continue;
-    for (let pin = 1; pin <= PIN_COUNT; pin++) {
+    // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
+    for (const w of cableWires(c)) {
       edges.push({
-        a: pinTerm(from.index, c.from.port, pin),
-        b: pinTerm(to.index, c.to.port, pin),
+        a: pinTerm(from.index, c.from.port, w.fromPin),
+        b: pinTerm(to.index, c.to.port, w.toPin),
         kind: 'cable',
-        label: `cable ${c.label || c.id}`,
+        label: `cable ${c.label || c.id}${w.note}`,
         cable: c.id,
       });
     }

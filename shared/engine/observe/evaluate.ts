@@ -26,6 +26,7 @@ import {
 } from './paths';
 import { strongestCadence } from './signals';
 import { staticFindings } from './static-findings';
+import { withWiringSymptoms } from './rules/wiring-symptoms';
 
 export interface EvaluateOptions {
   /** Trace conductor paths and write path-based sentences (default true). Sweeps turn it off for speed. */
@@ -235,7 +236,7 @@ export function evaluateWithNets(
   const dynamic = dynamicFindings(c, lines, buzzerOn);
   const fixed = staticFindings(nl, c.paths);
   const findings = fixed.length ? dynamic.concat(fixed) : dynamic;
-  return { lines, sets, stations, findings };
+  return withWiringSymptoms(nl, facts, { lines, sets, stations, findings }); // cable wiring faults
 }
 
 interface Layout {

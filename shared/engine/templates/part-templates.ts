@@ -179,10 +179,15 @@ const setCommonContacts: ContactSpec[] = [
   { a: 'AH', b: 'A1', when: 'notHoldPressed', label: 'Hold key break contact' },
 ];
 
-function setElements(lines: number): ElementSpec[] {
+/** The ten-key set's lamps are LEDs, lit one way round only. */
+const LED_LAMP = { fails: 'its LED lamp' } as const;
+
+function setElements(lines: number, ledLamps = false): ElementSpec[] {
   const out: ElementSpec[] = [{ kind: 'network', a: 'NT', b: 'NR', label: 'Speech network' }];
-  for (let k = 1; k <= lines; k++)
-    out.push({ kind: 'lamp', a: t(k, 'L'), b: 'LG', key: k, label: `Line ${k} lamp` });
+  for (let k = 1; k <= lines; k++) {
+    const lamp: ElementSpec = { kind: 'lamp', a: t(k, 'L'), b: 'LG', key: k, label: `Line ${k} lamp` };
+    out.push(ledLamps ? { ...lamp, polarised: LED_LAMP } : lamp);
+  }
   out.push({ kind: 'buzzer', a: 'BZ.T', b: 'BZ.R', label: 'Intercom buzzer' });
   return out;
 }
@@ -229,7 +234,7 @@ function tenKey(): PartTemplate {
     leadPort: 'cord',
     keys: lineKeys(9),
     leads,
-    elements: setElements(9),
+    elements: setElements(9, true),
     contacts: [...lineKeySprings(9), ...setCommonContacts],
     ringerStraps: straps(9),
   };
@@ -245,7 +250,16 @@ const singleLine: PartTemplate = {
   leadPort: 'cord',
   keys: [],
   leads: standardLineLeads(1).slice(0, 4),
-  elements: [{ kind: 'network', a: 'NT', b: 'NR', label: 'Speech network' }],
+  // Its tone dial is powered from the line and dials only with tip and ring the right way round.
+  elements: [
+    {
+      kind: 'network',
+      a: 'NT',
+      b: 'NR',
+      label: 'Speech network',
+      polarised: { fails: 'its tone dial' },
+    },
+  ],
   contacts: [
     { a: 'NT', b: t(1, 'T'), when: 'offHook', label: 'Hookswitch, tip' },
     { a: 'NR', b: t(1, 'R'), when: 'offHook', label: 'Hookswitch, ring' },

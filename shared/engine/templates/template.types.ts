@@ -48,6 +48,12 @@ export interface ElementSpec {
   /** For a lamp: the key it lights. */
   key?: number;
   label: string;
+  /**
+   * Present when the element works one way round only (a tone dial's electronics, a lamp behind a rectifier or an
+   * LED): its `a` terminal must meet the tip side of its circuit (the line's tip for a network, the lamp lead for
+   * a lamp). `fails` says, as a noun phrase, what stops working when tip and ring reach it reversed.
+   */
+  polarised?: { fails: string };
 }
 
 /** The mechanical condition that closes a contact. */
