@@ -179,15 +179,10 @@ const setCommonContacts: ContactSpec[] = [
   { a: 'AH', b: 'A1', when: 'notHoldPressed', label: 'Hold key break contact' },
 ];
 
-/** The ten-key set's lamps are LEDs, lit one way round only. */
-const LED_LAMP = { fails: 'its LED lamp' } as const;
-
-function setElements(lines: number, ledLamps = false): ElementSpec[] {
+function setElements(lines: number): ElementSpec[] {
   const out: ElementSpec[] = [{ kind: 'network', a: 'NT', b: 'NR', label: 'Speech network' }];
-  for (let k = 1; k <= lines; k++) {
-    const lamp: ElementSpec = { kind: 'lamp', a: t(k, 'L'), b: 'LG', key: k, label: `Line ${k} lamp` };
-    out.push(ledLamps ? { ...lamp, polarised: LED_LAMP } : lamp);
-  }
+  for (let k = 1; k <= lines; k++)
+    out.push({ kind: 'lamp', a: t(k, 'L'), b: 'LG', key: k, label: `Line ${k} lamp` });
   out.push({ kind: 'buzzer', a: 'BZ.T', b: 'BZ.R', label: 'Intercom buzzer' });
   return out;
 }
@@ -234,7 +229,7 @@ function tenKey(): PartTemplate {
     leadPort: 'cord',
     keys: lineKeys(9),
     leads,
-    elements: setElements(9, true),
+    elements: setElements(9),
     contacts: [...lineKeySprings(9), ...setCommonContacts],
     ringerStraps: straps(9),
   };

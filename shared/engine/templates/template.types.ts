@@ -49,9 +49,9 @@ export interface ElementSpec {
   key?: number;
   label: string;
   /**
-   * Present when the element works one way round only (a tone dial's electronics, a lamp behind a rectifier or an
-   * LED): its `a` terminal must meet the tip side of its circuit (the line's tip for a network, the lamp lead for
-   * a lamp). `fails` says, as a noun phrase, what stops working when tip and ring reach it reversed.
+   * Present when part of a speech network works one way round only (a line-powered tone dial): its `a` terminal
+   * must meet the line's tip. `fails` names, as a noun phrase, what stops working when tip and ring reach it
+   * reversed; talk itself still works.
    */
   polarised?: { fails: string };
 }

@@ -1,7 +1,8 @@
 /**
  * Symptoms of cable wiring faults that the nets alone do not show (common practice, no published source):
- * - a polarised element (template field `polarised`) reached tip-and-ring reversed does not work: its lamp stays
- *   dark, its tone dial does not dial; talk and everything else still work;
+ * - a polarised speech network (template field `polarised`, e.g. a line-powered tone dial) reached with tip and
+ *   ring reversed: talk still works, the polarised part does not. A reversed lamp pair needs nothing here: a
+ *   set's lamps share one lamp ground, so the reversal grounds the lamp lead and the nets already show it dark;
  * - a line in use whose conductors run over a split pair hums and picks up the circuit of the other pair.
  * Breaks, exchanged and joined conductors need nothing here: the netlist already carries them.
  */
@@ -9,8 +10,7 @@ import { pinOf } from '../../document/cable-code';
 import type { NetFacts } from '../../model/facts';
 import type { ElementInfo, Netlist } from '../../model/netlist';
 import { splitPins, wiringFaultWords } from '../../model/cable-faults';
-import { strongestCadence } from '../signals';
-import type { Cadence, Evaluation } from '../evaluation.types';
+import type { Evaluation } from '../evaluation.types';
 
 interface Polarised {
   element: ElementInfo;
@@ -68,7 +68,7 @@ function layoutOf(nl: Netlist): WiringLayout {
 export function withWiringSymptoms(nl: Netlist, facts: NetFacts, ev: Evaluation): Evaluation {
   const { polarised, splits } = layoutOf(nl);
   if (!polarised.length && !splits.length) return ev;
-  const { roots, rootT, rootR, rootL, gnd } = facts;
+  const { roots, rootT, rootR } = facts;
   const root = (t: number) => (nl.dense[t] >= 0 ? roots[nl.dense[t]] : -1 - t);
   const note = (owner: number, text: string) => (ev.sets[owner].notes ??= []).push(text);
 
@@ -76,27 +76,10 @@ export function withWiringSymptoms(nl: Netlist, facts: NetFacts, ev: Evaluation)
     const ra = root(e.a);
     const rb = root(e.b);
     if (ra === rb) continue;
-    if (e.kind === 'network') {
-      for (const i of facts.hears[e.owner]) {
-        if (ra === rootR[i] && rb === rootT[i])
-          note(e.owner, `On line ${nl.lines[i].number} ${fails} does not work: tip and ring reach it reversed.`);
-      }
-    } else if (e.kind === 'lamp' && e.key !== undefined) {
-      const key = ev.sets[e.owner].keys.find((k) => k.index === e.key);
-      if (!key?.lines.length) continue;
-      const rightWay: number[] = [];
-      let lamp: Cadence = 'dark';
-      for (const n of key.lines) {
-        const i = nl.lines.findIndex((l) => l.number === n);
-        if (ra === rootL[i] && rb === gnd) {
-          rightWay.push(n);
-          lamp = strongestCadence(lamp, ev.lines[i].lamp);
-        } else if (ev.lines[i].lamp !== 'dark') {
-          note(e.owner, `${key.label}: ${fails} stays dark for line ${n}: the lamp lead and lamp ground reach it reversed.`);
-        }
-      }
-      key.lines = rightWay;
-      key.lamp = lamp;
+    if (e.kind !== 'network') continue;
+    for (const i of facts.hears[e.owner]) {
+      if (ra === rootR[i] && rb === rootT[i])
+        note(e.owner, `On line ${nl.lines[i].number} ${fails} does not work: tip and ring reach it reversed.`);
     }
   }
 
