@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { evaluate, PlanSchema, type Plan, type SimAction, type WiringFault } from '../../shared/engine/index';
+import { cableWires } from '../../shared/engine/model/cable-faults';
 import { operate, planBuilder } from '../support/plan-builder';
 import '../support/matchers';
 
@@ -153,5 +154,35 @@ describe('split pair', () => {
     const ev = evaluate(plan, operate(plan, [...onLine(front, 1), ...onLine(back, 1)]));
     expect(ev.sets[1].hears).toEqual([]);
     expect(ev.lines[0].noise?.length).toBe(1);
+  });
+});
+
+describe('the conductors of a cable', () => {
+  // RJ21X: ring of pair n on pin n, tip on pin n+25 (USOC RJ21X).
+  const cable = (faults?: WiringFault[]) => ({ id: 'c1', from: { part: 'ksu', port: 'port-1' }, to: { part: 'desk', port: 'cord' }, faults });
+  const pinPairs = (faults?: WiringFault[]) => cableWires(cable(faults)).map((w) => [w.fromPin, w.toPin]);
+
+  it('are pin for pin on a healthy cable: 50 conductors', () => {
+    expect(pinPairs()).toEqual(Array.from({ length: 50 }, (_, i) => [i + 1, i + 1]));
+  });
+
+  it('leave a broken conductor out and swap the pins of a split or a reversal', () => {
+    const open = pinPairs([{ kind: 'open-conductor', pair: 2, conductor: 'tip', end: 'from' }]);
+    expect(open).toHaveLength(49);
+    expect(open.some(([a]) => a === 27)).toBe(false); // tip of pair 2 on pin 27
+    const split = pinPairs([{ kind: 'split-pair', pair: 1, withPair: 4, conductor: 'tip', end: 'to' }]);
+    expect(split.filter(([a, b]) => a !== b)).toEqual([[26, 29], [29, 26]]); // tips of pairs 1 and 4: pins 26, 29
+    const reversed = pinPairs([{ kind: 'reversed-pair', pair: 3, end: 'from' }]);
+    expect(reversed.filter(([a, b]) => a !== b)).toEqual([[3, 28], [28, 3]]);
+  });
+
+  it('carry faults made at the two ends together: a reversal at one end, a break near the other', () => {
+    const both = pinPairs([
+      { kind: 'reversed-pair', pair: 1, end: 'from' },
+      { kind: 'open-conductor', pair: 4, conductor: 'ring', end: 'to' },
+    ]);
+    expect(both).toHaveLength(49);
+    expect(both.filter(([a, b]) => a !== b)).toEqual([[1, 26], [26, 1]]); // pair 1: pins 1 and 26
+    expect(both.some(([, b]) => b === 4)).toBe(false); // ring of pair 4 on pin 4
   });
 });
