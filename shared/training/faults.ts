@@ -10,6 +10,7 @@ import {
   type KsuLead,
   type LeadChange,
   type Plan,
+  type WiringFault,
 } from '../engine/index';
 import type { PlantedFault, RepairStep } from './puzzle.schema';
 
@@ -44,6 +45,29 @@ function withCableEnd(plan: Plan, cable: string, end: 'from' | 'to', part: strin
 }
 
 const touches = (c: LeadChange, pair: number) => c.pair === pair;
+
+type CableFault = Extract<PlantedFault, { kind: 'split-pair' | 'reversed-pair' | 'open-conductor' }>;
+
+function withCableFaults(plan: Plan, cable: string, edit: (faults: WiringFault[]) => WiringFault[]): Plan {
+  return {
+    ...plan,
+    cables: plan.cables.map((c) => {
+      if (c.id !== cable) return c;
+      const faults = edit(c.faults ?? []);
+      const { faults: _old, ...rest } = c;
+      return faults.length ? { ...rest, faults } : rest;
+    }),
+  };
+}
+
+/** The plan document's form of a planted wiring fault (the same fields, without the cable). */
+function wiringFault(fault: CableFault): WiringFault {
+  const { cable: _cable, ...rest } = fault;
+  return rest;
+}
+
+const wiringTouches = (f: WiringFault, pair: number) =>
+  f.pair === pair || (f.kind === 'split-pair' && f.withPair === pair);
 
 /** The plan once the fault is planted. */
 export function plantFault(plan: Plan, fault: PlantedFault): Transformed {
@@ -82,6 +106,12 @@ export function plantFault(plan: Plan, fault: PlantedFault): Transformed {
       if (!plan.cables.some((c) => c.id === fault.cable))
         return { ok: false, problem: `No cable "${fault.cable}" in the plan` };
       return checked(withCableEnd(plan, fault.cable, fault.end, fault.part, fault.port));
+    case 'split-pair':
+    case 'reversed-pair':
+    case 'open-conductor':
+      if (!plan.cables.some((c) => c.id === fault.cable))
+        return { ok: false, problem: `No cable "${fault.cable}" in the plan` };
+      return checked(withCableFaults(plan, fault.cable, (fs) => [...fs, wiringFault(fault)]));
   }
 }
 
@@ -125,6 +155,9 @@ export function applyRepairStep(plan: Plan, step: RepairStep): Transformed {
     case 'replug':
       if (!plan.cables.some((c) => c.id === step.cable)) return { ok: false, problem: `No cable "${step.cable}"` };
       return checked(withCableEnd(plan, step.cable, step.end, step.part, step.port), false);
+    case 'cable-pair':
+      if (!plan.cables.some((c) => c.id === step.cable)) return { ok: false, problem: `No cable "${step.cable}"` };
+      return { ok: true, plan: withCableFaults(plan, step.cable, (fs) => fs.filter((f) => !wiringTouches(f, step.pair))) };
   }
 }
 
@@ -153,7 +186,19 @@ export function faultLocation(plan: Plan, fault: PlantedFault): { part: string; 
       const other = cable ? cable[fault.end === 'from' ? 'to' : 'from'].part : fault.cable;
       return { part: other, pair: null };
     }
+    case 'split-pair':
+    case 'reversed-pair':
+    case 'open-conductor':
+      return { part: cableSet(plan, fault.cable, fault.end), pair: fault.pair };
   }
+}
+
+/** The set (or add-on) a cable serves, named by a diagnosis; the part at the faulty end when neither end is one. */
+function cableSet(plan: Plan, cable: string, end: 'from' | 'to'): string {
+  const c = plan.cables.find((x) => x.id === cable);
+  if (!c) return cable;
+  const isUnit = (id: string) => plan.sets.some((s) => s.id === id) || plan.addOns.some((a) => a.id === id);
+  return [c.to.part, c.from.part].find(isUnit) ?? c[end].part;
 }
 
 function partName(plan: Plan, id: string): string {
@@ -188,7 +233,23 @@ export function describeFault(plan: Plan, fault: PlantedFault): string {
       return `${partName(plan, fault.part)} was fitted as a different set (${fault.template}) from the one planned.`;
     case 'cable-wrong-port':
       return `${partName(plan, fault.cable)} was plugged into ${partName(plan, fault.part)}, port ${fault.port}.`;
+    case 'split-pair':
+      return `${cableWords(plan, fault.cable)}: at the ${endWords(plan, fault.cable, fault.end)} the ${fault.conductor} of pair ${fault.pair} was terminated on pair ${fault.withPair} and the other way round (split pair).`;
+    case 'reversed-pair':
+      return `${cableWords(plan, fault.cable)}: at the ${endWords(plan, fault.cable, fault.end)} tip and ring of pair ${fault.pair} were swapped.`;
+    case 'open-conductor':
+      return `${cableWords(plan, fault.cable)}: the ${fault.conductor} of pair ${fault.pair} was broken near the ${endWords(plan, fault.cable, fault.end)}.`;
   }
+}
+
+function cableWords(plan: Plan, cable: string): string {
+  const c = plan.cables.find((x) => x.id === cable);
+  return c ? `The cable from ${partName(plan, c.from.part)} to ${partName(plan, c.to.part)}` : `Cable ${cable}`;
+}
+
+function endWords(plan: Plan, cable: string, end: 'from' | 'to'): string {
+  const c = plan.cables.find((x) => x.id === cable);
+  return c ? `${partName(plan, c[end].part)} end` : `${end} end`;
 }
 
 export function describeRepairStep(plan: Plan, step: RepairStep): string {
@@ -203,12 +264,15 @@ export function describeRepairStep(plan: Plan, step: RepairStep): string {
       return `KSU port ${step.port}, pair ${step.pair}: cross-connect ${describeKsuLead(plan, step.lead)}`;
     case 'replug':
       return `Plug ${partName(plan, step.cable)} into ${partName(plan, step.part)}, port ${step.port}`;
+    case 'cable-pair':
+      return `${cableWords(plan, step.cable)}: re-terminate pair ${step.pair} at both ends`;
   }
 }
 
 /**
  * The repair that undoes the faults, for the puzzle maker to start from: lift what was left on, put back what was
- * lifted, restore the cross-connect entry and the cable end; a wrong set gets the engine's cure for it.
+ * lifted, restore the cross-connect entry and the cable end, re-terminate a faulty cable pair; a wrong set gets the
+ * engine's cure for it.
  */
 export function undoingRepair(plan: Plan, faults: readonly PlantedFault[]): RepairStep[] {
   const healthy = effectiveCrossConnect(plan.ksu);
@@ -228,6 +292,10 @@ export function undoingRepair(plan: Plan, faults: readonly PlantedFault[]): Repa
         const cable = plan.cables.find((c) => c.id === fault.cable);
         return cable ? [{ kind: 'replug', cable: fault.cable, end: fault.end, ...cable[fault.end] }] : [];
       }
+      case 'split-pair':
+      case 'reversed-pair':
+      case 'open-conductor':
+        return [{ kind: 'cable-pair', cable: fault.cable, pair: fault.pair }];
       case 'wrong-set-fitted': {
         const planted = plantFault(plan, fault);
         if (!planted.ok) return [];

@@ -1,11 +1,12 @@
 /**
  * Fault puzzles as data: a healthy plan, the faults planted in it (each a transformation of the plan document),
  * the intended repair, a task statement, a level, an attempt limit and a scoring rubric.
- * Fault kinds are one discriminated union; kinds that need more of the engine (a split or reversed pair, an open
- * conductor) are further members added later without changing the others.
+ * Fault kinds are one discriminated union; the wiring faults inside a cable (split pair, reversed pair, open
+ * conductor) are planted as the cable's `faults` in the plan document, so the engine shows their symptoms.
  */
 import { z } from 'zod';
 import {
+  CableEndSchema,
   ConductorSchema,
   KsuLeadSchema,
   LeadChangeSchema,
@@ -20,6 +21,9 @@ export const FAULT_KINDS = [
   'cross-connect-wrong',
   'wrong-set-fitted',
   'cable-wrong-port',
+  'split-pair',
+  'reversed-pair',
+  'open-conductor',
 ] as const;
 export const FaultKindSchema = z.enum(FAULT_KINDS);
 export type FaultKind = z.infer<typeof FaultKindSchema>;
@@ -31,6 +35,9 @@ export const FAULT_KIND_LABELS: Record<FaultKind, string> = {
   'cross-connect-wrong': 'Wrong cross-connect at the KSU (for example a buzzer on the wrong pair)',
   'wrong-set-fitted': 'The set is the wrong model or option',
   'cable-wrong-port': 'The cable is plugged into the wrong port',
+  'split-pair': 'Split pair in the cable (a conductor exchanged with one of another pair)',
+  'reversed-pair': 'Reversed pair in the cable (tip and ring swapped)',
+  'open-conductor': 'Open conductor in the cable (one wire broken)',
 };
 
 const LiftedConductorSchema = z.enum(['tip', 'ring', 'both']);
@@ -62,6 +69,25 @@ export const PlantedFaultSchema = z.discriminatedUnion('kind', [
     part: PartIdSchema,
     port: z.string().min(1),
   }),
+  /** At one end of the cable a conductor of `pair` is exchanged with the same conductor of `withPair`. */
+  z.object({
+    kind: z.literal('split-pair'),
+    cable: PartIdSchema,
+    pair: PairNumberSchema,
+    withPair: PairNumberSchema,
+    conductor: ConductorSchema,
+    end: CableEndSchema,
+  }),
+  /** At one end of the cable tip and ring of `pair` are exchanged. */
+  z.object({ kind: z.literal('reversed-pair'), cable: PartIdSchema, pair: PairNumberSchema, end: CableEndSchema }),
+  /** One conductor of `pair` is broken in the cable, near `end`. */
+  z.object({
+    kind: z.literal('open-conductor'),
+    cable: PartIdSchema,
+    pair: PairNumberSchema,
+    conductor: ConductorSchema,
+    end: CableEndSchema,
+  }),
 ]);
 export type PlantedFault = z.infer<typeof PlantedFaultSchema>;
 
@@ -83,6 +109,8 @@ export const RepairStepSchema = z.discriminatedUnion('kind', [
     part: PartIdSchema,
     port: z.string().min(1).max(40),
   }),
+  /** Re-terminate (or replace) one pair of a cable at both ends: clears its split, reversal or break. */
+  z.object({ kind: z.literal('cable-pair'), cable: PartIdSchema, pair: PairNumberSchema }),
 ]);
 export type RepairStep = z.infer<typeof RepairStepSchema>;
 

@@ -158,3 +158,82 @@ describe('the repair that undoes the faults (the puzzle maker’s starting point
     expect(checkPuzzle({ ...puzzle, repair: undoingRepair(puzzle.plan, puzzle.faults) }).problems).toEqual([]);
   });
 });
+
+describe('wiring faults in a cable (split pair, reversed pair, open conductor)', () => {
+  /** The faulty plan of a shipped puzzle and a set's sighting in one of its probes. */
+  function seen(slug: string, probeName: string, set: string, faultyPlan = true) {
+    const spec = shipped(slug);
+    const planted = plantFaults(spec.plan, spec.faults);
+    if (!planted.ok) throw new Error(planted.problem);
+    const plan = faultyPlan ? planted.plan : spec.plan;
+    const probe = probes(spec.plan).find((p) => p.name === probeName)!;
+    return sightingOf(plan, probeState(plan, probe)!).sets.find((s) => s.set === set)!;
+  }
+
+  it.each([
+    ['drawing-room-never-buzzes', 'drawing-cord', [{ kind: 'open-conductor', pair: 18, conductor: 'ring', end: 'to' }]],
+    ['counter-lamp-line-one', 'counter-cord', [{ kind: 'reversed-pair', pair: 3, end: 'from' }]],
+    ['front-desk-split-pair', 'front-cord', [{ kind: 'split-pair', pair: 1, withPair: 4, conductor: 'tip', end: 'from' }]],
+  ])('%s plants its fault on the cable, and the intended repair takes it off again', (slug, cable, faults) => {
+    const spec = shipped(slug);
+    const planted = plantFaults(spec.plan, spec.faults);
+    if (!planted.ok) throw new Error(planted.problem);
+    expect(planted.plan.cables.find((c) => c.id === cable)!.faults).toEqual(faults);
+    expect(spec.plan.cables.find((c) => c.id === cable)!.faults).toBeUndefined();
+    const repaired = applyRepair(planted.plan, spec.repair);
+    if (!repaired.ok) throw new Error(repaired.problem);
+    expect(repaired.plan).toEqual(spec.plan);
+    expect(differingProbes(spec.plan, repaired.plan)).toEqual([]);
+  });
+
+  it('open conductor: the buzzer on the broken pair is silent (common practice, no published source)', () => {
+    expect(seen('drawing-room-never-buzzes', 'call 22', 'drawing-room', false).buzzer).toBe(true);
+    expect(seen('drawing-room-never-buzzes', 'call 22', 'drawing-room').buzzer).toBe(false);
+    expect(seen('drawing-room-never-buzzes', 'drawing-room key 1', 'drawing-room').tones).toEqual(['dial']);
+  });
+
+  it('reversed lamp pair: line 1 stays dark on both sets while talk works (common practice, no published source)', () => {
+    const counter = seen('counter-lamp-line-one', 'counter key 1', 'counter');
+    expect(counter.keys[0].lamp).toBe('dark');
+    expect(counter.tones).toEqual(['dial']);
+    expect(seen('counter-lamp-line-one', 'counter key 1', 'bakehouse').keys[0].lamp).toBe('dark');
+    expect(seen('counter-lamp-line-one', 'counter key 1', 'counter', false).keys[0].lamp).toBe('steady');
+  });
+
+  it('split pair: no dial tone at the front desk on lines 1 and 2, lamps still lit (common practice, no published source)', () => {
+    for (const key of [1, 2]) {
+      const front = seen('front-desk-split-pair', `front-desk key ${key}`, 'front-desk');
+      expect(front.tones).toEqual([]);
+      expect(front.keys[key - 1].lamp).toBe('steady');
+      expect(seen('front-desk-split-pair', `front-desk key ${key}`, 'front-desk', false).tones).toEqual(['dial']);
+    }
+    expect(seen('front-desk-split-pair', 'drawing-room key 1', 'drawing-room').tones).toEqual(['dial']);
+  });
+
+  it('grades a right diagnosis naming the set on that cable and the pair', () => {
+    const spec = shipped('front-desk-split-pair');
+    const graded = gradeSubmission(
+      spec,
+      { diagnoses: [{ part: 'front-desk', pair: 1, conductor: null, kind: 'split-pair' }], repair: spec.repair },
+      context,
+    );
+    if (!graded.ok) throw new Error(graded.problem);
+    expect(graded.result).toMatchObject({ passed: true, faultsCleared: 1, diagnosesRight: 1 });
+    expect(explainPuzzle(spec).repair).toEqual([
+      'The cable from Front desk to Key service unit: re-terminate pair 1 at both ends',
+    ]);
+  });
+
+  it('refuses a wiring fault on a cable the plan does not have, or a split onto the same pair', () => {
+    const spec = shipped('front-desk-split-pair');
+    expect(plantFaults(spec.plan, [{ kind: 'reversed-pair', cable: 'nowhere', pair: 1, end: 'to' }])).toEqual({
+      ok: false,
+      problem: 'Fault 1: No cable "nowhere" in the plan',
+    });
+    const same = plantFaults(spec.plan, [
+      { kind: 'split-pair', cable: 'front-cord', pair: 4, withPair: 4, conductor: 'ring', end: 'to' },
+    ]);
+    expect(same).toMatchObject({ ok: false });
+    expect(!same.ok && same.problem).toContain('A split pair needs two different pairs');
+  });
+});

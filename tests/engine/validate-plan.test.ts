@@ -233,3 +233,60 @@ describe('canConnect', () => {
     expect(canConnect(base().b.build(), from, to)).toEqual({ ok: false, reason });
   });
 });
+
+describe('validatePlan: wiring faults in a cable', () => {
+  type Faults = NonNullable<NonNullable<PlanInput['cables']>[number]['faults']>;
+  const withFaults = (faults: unknown) => (d: PlanInput) => (d.cables![1].faults = faults as Faults);
+
+  it('accepts one fault of each kind on different pairs, and a cable without faults', () => {
+    expect(issuesOf(() => undefined)).toEqual([]);
+    expect(
+      issuesOf(
+        withFaults([
+          { kind: 'split-pair', pair: 1, withPair: 4, conductor: 'tip', end: 'to' },
+          { kind: 'reversed-pair', pair: 7, end: 'from' },
+          { kind: 'open-conductor', pair: 18, conductor: 'ring', end: 'to' },
+        ]),
+      ),
+    ).toEqual([]);
+  });
+
+  // Pairs 1–25: ICEA S-80-576; the messages are our own wording (no published source).
+  it.each<[string, unknown, string, string]>([
+    [
+      'a pair beyond 25',
+      [{ kind: 'reversed-pair', pair: 26, end: 'from' }],
+      'cables[1].faults[0].pair',
+      'Too big: expected number to be <=25',
+    ],
+    [
+      'a split onto the same pair',
+      [{ kind: 'split-pair', pair: 4, withPair: 4, conductor: 'ring', end: 'to' }],
+      'cables[1].faults[0].withPair',
+      'A split pair needs two different pairs',
+    ],
+    [
+      'two faults on one pair',
+      [
+        { kind: 'open-conductor', pair: 2, conductor: 'tip', end: 'to' },
+        { kind: 'split-pair', pair: 5, withPair: 2, conductor: 'tip', end: 'from' },
+      ],
+      'cables[1].faults[1].withPair',
+      'Pair 2 already has a wiring fault in this cable (cables[1].faults[0])',
+    ],
+    [
+      'an unknown end',
+      [{ kind: 'reversed-pair', pair: 3, end: 'middle' }],
+      'cables[1].faults[0].end',
+      'Invalid option: expected one of "from"|"to"',
+    ],
+    [
+      'more than twelve faults',
+      Array.from({ length: 13 }, (_, i) => ({ kind: 'reversed-pair', pair: i + 1, end: 'to' })),
+      'cables[1].faults',
+      'Too big: expected array to have <=12 items',
+    ],
+  ])('reports %s at its exact path', (_name, faults, path, message) => {
+    expect(issuesOf(withFaults(faults))).toContainEqual({ path, message });
+  });
+});

@@ -25,6 +25,8 @@ let admin: Agent;
 let trainee: Agent;
 let outsider: Agent;
 let classId = '';
+/** Shipped puzzles worked in their own class by a second trainee: each plants a wiring fault inside a cable. */
+const WIRING = ['front-desk-split-pair', 'counter-lamp-line-one', 'drawing-room-never-buzzes'];
 const assignments: Record<string, string> = {};
 /** Every body a trainee received from a puzzle route, as text. */
 const traineeBodies: string[] = [];
@@ -146,6 +148,42 @@ async function traineeFetchExplanation(runId: string) {
 }
 
 describe('what reaches a trainee', () => {
+  it('sees only lamps, tones and buzzers of a puzzle with a wiring fault in a cable', async () => {
+    // Split tips of pairs 1 and 4 at the front desk: no dial tone on line 1 there, the lamp still lights
+    // (common practice, no published source).
+    const first = traineeBodies.length;
+    const learner = await signedInAgent(server, 'trainee');
+    const wiringClass = (await instructor.agent.post('/api/training/classes').send({ name: 'Wiring class' })).body.id;
+    await server.db('training_members').insert({ class_id: wiringClass, user_id: learner.user.id, joined_at: new Date().toISOString() });
+    const runs: Record<string, string> = {};
+    for (const slug of WIRING) {
+      const copied = PuzzleRecordSchema.parse((await instructor.agent.post('/api/training/puzzles/from-library').send({ slug })).body);
+      const assigned = await instructor.agent
+        .post(`/api/training/classes/${wiringClass}/assignments`)
+        .send({ kind: 'puzzle', itemId: copied.id, dueAt: '2027-01-15T18:00:00.000Z' });
+      runs[slug] = RunViewSchema.parse((await asTrainee(learner, 'post', `/api/training/assignments/${assigned.body.id}/run`)).body).id;
+    }
+    const act = (slug: string, action: object) => asTrainee(learner, 'post', `/api/training/runs/${runs[slug]}/actions`, { action });
+    await act('front-desk-split-pair', { kind: 'press-key', set: 'front-desk', key: 1 });
+    const front = RunViewSchema.parse((await act('front-desk-split-pair', { kind: 'lift-handset', set: 'front-desk' })).body).sets.find((s) => s.set === 'front-desk')!;
+    expect(front.tones).toEqual([]);
+    expect(front.keys[0].lamp).toBe('steady');
+    await act('counter-lamp-line-one', { kind: 'press-key', set: 'counter', key: 1 });
+    const counter = RunViewSchema.parse((await act('counter-lamp-line-one', { kind: 'lift-handset', set: 'counter' })).body).sets.find((s) => s.set === 'counter')!;
+    expect(counter.keys[0].lamp).toBe('dark'); // lamp lead grounded through the shared lamp ground
+    const called = RunViewSchema.parse((await act('drawing-room-never-buzzes', { kind: 'intercom-call', station: 'st-22' })).body);
+    expect(called.sets.find((s) => s.set === 'drawing-room')!.buzzer).toBe(false);
+    // None of these runs has opened its explanation: nothing of the faults, the repair or the symptoms' causes.
+    const bodies = traineeBodies.slice(first);
+    expect(bodies).toHaveLength(8);
+    const forbidden = ['"faults"', 'split-pair', 'reversed-pair', 'open-conductor', '"cable-pair"', 'withPair', 'Hum on line', 'reach it reversed', '"noise"', '"notes"'];
+    for (const slug of WIRING) {
+      const puzzle = SHIPPED_PUZZLES.find((p) => p.slug === slug)!;
+      forbidden.push(puzzle.explanation, JSON.stringify(puzzle.faults[0]), JSON.stringify(puzzle.repair[0]));
+    }
+    for (const body of bodies) for (const word of forbidden) expect(body).not.toContain(word);
+  });
+
   it('never carries planted faults, the repair, the plan internals or findings before the explanation opens', async () => {
     const explanationIndex = traineeBodies.findIndex((b) => b.includes('"paths"'));
     const beforeReveal = traineeBodies.slice(0, explanationIndex === -1 ? undefined : explanationIndex);

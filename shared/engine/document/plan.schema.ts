@@ -130,12 +130,43 @@ export type Ksu = z.infer<typeof KsuSchema>;
 export const PortRefSchema = z.object({ part: PartIdSchema, port: z.string().min(1).max(40) });
 export type PortRef = z.infer<typeof PortRefSchema>;
 
-/** One 25-pair cable, pin for pin, from a plug to a jack. */
+export const CableEndSchema = z.enum(['from', 'to']);
+export type CableEnd = z.infer<typeof CableEndSchema>;
+
+/**
+ * A wiring fault inside a cable, made when one end was terminated (`end`: the from or the to end).
+ * - split-pair: at that end the `conductor` of `pair` and the same conductor of `withPair` are exchanged, so each
+ *   circuit's tip (or ring) arrives on the other pair;
+ * - reversed-pair: at that end the tip and ring of `pair` are exchanged;
+ * - open-conductor: the `conductor` of `pair` is broken near that end and reaches nothing beyond it.
+ */
+export const WiringFaultSchema = z.discriminatedUnion('kind', [
+  z.object({
+    kind: z.literal('split-pair'),
+    pair: PairNumberSchema,
+    withPair: PairNumberSchema,
+    conductor: ConductorSchema,
+    end: CableEndSchema,
+  }),
+  z.object({ kind: z.literal('reversed-pair'), pair: PairNumberSchema, end: CableEndSchema }),
+  z.object({
+    kind: z.literal('open-conductor'),
+    pair: PairNumberSchema,
+    conductor: ConductorSchema,
+    end: CableEndSchema,
+  }),
+]);
+export type WiringFault = z.infer<typeof WiringFaultSchema>;
+export type WiringFaultKind = WiringFault['kind'];
+
+/** One 25-pair cable from a plug to a jack: pin for pin, unless it has wiring faults. */
 export const CableSchema = z.object({
   id: PartIdSchema,
   from: PortRefSchema,
   to: PortRefSchema,
   label: z.string().trim().max(40).optional(),
+  /** Wiring faults inside this cable (absent on a healthy cable); each pair may appear in one of them only. */
+  faults: z.array(WiringFaultSchema).max(12).optional(),
 });
 export type Cable = z.infer<typeof CableSchema>;
 

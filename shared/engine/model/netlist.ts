@@ -10,6 +10,7 @@ import { getTemplate, ksuPortName } from '../templates/part-templates';
 import type { ElementKind, LeadSpec, PartKind, PartTemplate } from '../templates/template.types';
 import { effectiveCrossConnect } from './cross-connect';
 import { applyLeadChanges } from './lead-changes';
+import { cableWires } from './cable-faults';
 
 export interface PartInfo {
   index: number;
@@ -487,12 +488,13 @@ function wireCables(b: Builder, plan: Plan): void {
     const from = b.partById.get(c.from.part);
     const to = b.partById.get(c.to.part);
     if (!from || !to || !portExists(plan, from, c.from.port) || !portExists(plan, to, c.to.port)) continue;
-    for (let pin = 1; pin <= PIN_COUNT; pin++) {
+    // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
+    for (const w of cableWires(c)) {
       b.edges.push({
-        a: pinTerm(b, from.index, c.from.port, pin),
-        b: pinTerm(b, to.index, c.to.port, pin),
+        a: pinTerm(b, from.index, c.from.port, w.fromPin),
+        b: pinTerm(b, to.index, c.to.port, w.toPin),
         kind: 'cable',
-        label: `cable ${c.label || c.id}`,
+        label: `cable ${c.label || c.id}${w.note}`,
         cable: c.id,
       });
     }

@@ -5,7 +5,7 @@
 import { zodIssues, type Issue } from '../document/issues';
 import { getTemplate } from '../templates/part-templates';
 import type { PartTemplate } from '../templates/template.types';
-import { PlanSchema, type Plan, type PortRef } from '../document/plan.schema';
+import { PlanSchema, type Plan, type PortRef, type WiringFault } from '../document/plan.schema';
 
 export type PlanIssue = Issue;
 
@@ -214,8 +214,30 @@ export function crossReferenceIssues(plan: Plan): PlanIssue[] {
     else if (a && b && a.gender === b.gender) {
       issue(`cables[${i}].to.port`, `Both ends are ${a.gender}s; a cable joins a plug to a jack`);
     }
+    wiringFaultIssues(c.faults ?? [], `cables[${i}].faults`, issue);
   });
   return issues;
+}
+
+/** A split needs two different pairs, and one pair of a cable carries at most one wiring fault. */
+function wiringFaultIssues(
+  faults: readonly WiringFault[],
+  path: string,
+  issue: (path: string, message: string) => void,
+): void {
+  const faultOn = new Map<number, number>();
+  const claim = (pair: number, j: number, field: 'pair' | 'withPair') => {
+    const first = faultOn.get(pair);
+    if (first !== undefined) {
+      issue(`${path}[${j}].${field}`, `Pair ${pair} already has a wiring fault in this cable (${path}[${first}])`);
+    } else faultOn.set(pair, j);
+  };
+  faults.forEach((f, j) => {
+    claim(f.pair, j, 'pair');
+    if (f.kind !== 'split-pair') return;
+    if (f.withPair === f.pair) issue(`${path}[${j}].withPair`, 'A split pair needs two different pairs');
+    else claim(f.withPair, j, 'withPair');
+  });
 }
 
 function leadChangeIssues(

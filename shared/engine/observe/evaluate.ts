@@ -15,6 +15,7 @@ import {
   observeSets,
   observeStations,
 } from './observations';
+import { withWiringSymptoms } from './wiring-symptoms';
 import { computeNets, type StateNets } from './state-nets';
 
 export { computeNets, computeNetsInto, createMechFor, type StateNets } from './state-nets';
@@ -43,7 +44,8 @@ export function evaluateWithNets(
   const { sets, buzzerOn } = observeSets(nl, state, nets.mech, nets.facts, lineStates, lines);
   const stations = observeStations(nl, state, buzzerOn);
   const facts = findingFacts(nl, state, nets, lineStates, lines, buzzerOn, paths);
-  return { lines, sets, stations, findings: allFindings(facts, paths) };
+  // cable wiring faults add their symptoms (hum, a polarised element that fails) to the observations
+  return withWiringSymptoms(nl, nets.facts, { lines, sets, stations, findings: allFindings(facts, paths) });
 }
 
 /**

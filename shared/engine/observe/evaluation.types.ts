@@ -15,6 +15,8 @@ export interface LineObservation {
   lamp: Cadence;
   far: FarPhase;
   joinedWith: number[];
+  /** What a user hears on the line besides the call (crosstalk over a split pair); absent when nothing. */
+  noise?: string[];
 }
 
 export interface KeyObservation {
@@ -35,6 +37,8 @@ export interface SetObservation {
   tones: { tone: ToneName; line: number }[];
   buzzer: boolean;
   ringer: boolean;
+  /** What does not work one way round on this set (tip and ring reversed); absent when nothing. */
+  notes?: string[];
 }
 
 export interface StationObservation {

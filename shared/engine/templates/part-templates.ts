@@ -245,7 +245,16 @@ const singleLine: PartTemplate = {
   leadPort: 'cord',
   keys: [],
   leads: standardLineLeads(1).slice(0, 4),
-  elements: [{ kind: 'network', a: 'NT', b: 'NR', label: 'Speech network' }],
+  // Its tone dial is powered from the line and dials only with tip and ring the right way round.
+  elements: [
+    {
+      kind: 'network',
+      a: 'NT',
+      b: 'NR',
+      label: 'Speech network',
+      polarised: { fails: 'its tone dial' },
+    },
+  ],
   contacts: [
     { a: 'NT', b: t(1, 'T'), when: 'offHook', label: 'Hookswitch, tip' },
     { a: 'NR', b: t(1, 'R'), when: 'offHook', label: 'Hookswitch, ring' },

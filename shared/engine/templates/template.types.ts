@@ -48,6 +48,12 @@ export interface ElementSpec {
   /** For a lamp: the key it lights. */
   key?: number;
   label: string;
+  /**
+   * Present when part of a speech network works one way round only (a line-powered tone dial): its `a` terminal
+   * must meet the line's tip. `fails` names, as a noun phrase, what stops working when tip and ring reach it
+   * reversed; talk itself still works.
+   */
+  polarised?: { fails: string };
 }
 
 /** The mechanical condition that closes a contact. */

@@ -59,6 +59,19 @@ const RAW = [
     explanation:
       "Both sets bring their common talk pair out on pair 23. Reception needs it for its hands-free add-on; the back office's should have been lifted. With both on, the adapter joined the two sets' talk circuits, and with them whatever lines they had selected.",
   },
+  {
+    slug: 'drawing-room-never-buzzes',
+    title: 'Nobody answers 22',
+    statement:
+      'At the survey office, dialling 22 on the intercom buzzes nobody. Dialling 21 buzzes the front desk as it should, and calls on every line work from both sets.',
+    level: 1,
+    attemptLimit: 3,
+    plan: surveyOffice(),
+    faults: [{ kind: 'open-conductor', cable: 'drawing-cord', pair: 18, conductor: 'ring', end: 'to' }],
+    repair: [{ kind: 'cable-pair', cable: 'drawing-cord', pair: 18 }],
+    explanation:
+      "The ring of pair 18 (the buzzer return) was broken in the drawing room's cable near the KSU. Station 22's buzzer output reached the set on one conductor only, so the buzzer had no circuit; everything on the other pairs worked. Re-terminating (or replacing) pair 18 restores it.",
+  },
   // Level 2: the symptom needs the right state, or the cause is one step removed.
   {
     slug: 'line-two-will-not-seize',
@@ -115,6 +128,19 @@ const RAW = [
     repair: [{ kind: 'replug', cable: 'workshop-cord', end: 'to', part: 'ksu', port: 'port-2' }],
     explanation:
       "The workshop cord went back into the spare jack of the office adapter instead of station port 2. On port 1 its buzzer pair 18 carries station 61, so the workshop buzzed with the office and station 63's output reached nobody.",
+  },
+  {
+    slug: 'counter-lamp-line-one',
+    title: 'Line 1 never lights',
+    statement:
+      'At the corner bakery line 1 works for calls on both sets, but its lamp stays dark on the counter and in the bakehouse, even during a call. Lines 2 and 3 light normally.',
+    level: 2,
+    attemptLimit: 3,
+    plan: bakeryCounter(),
+    faults: [{ kind: 'reversed-pair', cable: 'counter-cord', pair: 3, end: 'from' }],
+    repair: [{ kind: 'cable-pair', cable: 'counter-cord', pair: 3 }],
+    explanation:
+      "Tip and ring of pair 3 (line 1's lamp lead L and lamp ground LG) were swapped where the counter's cord was terminated. The set's lamps share one lamp ground, so the swap put the KSU's lamp lead for line 1 straight onto ground: no line 1 lamp anywhere on the cable. Re-terminating pair 3 the right way round cures it.",
   },
   // Level 3: two faults, or a fault that shows only in a combined state.
   {
@@ -205,6 +231,19 @@ const RAW = [
     ],
     explanation:
       "Station 32's buzzer output was missing from pair 17 at the KSU, and the ring lead of line 3's talk pair (pair 7) had been lifted at the counter.",
+  },
+  {
+    slug: 'front-desk-split-pair',
+    title: 'Two dead lines at the front desk',
+    statement:
+      'At the survey office the front desk gets no dial tone on line 1 or line 2, though both lamps come on when she takes them. The drawing room uses both lines normally; the front desk cord was re-made last week.',
+    level: 3,
+    attemptLimit: 2,
+    plan: surveyOffice(),
+    faults: [{ kind: 'split-pair', cable: 'front-cord', pair: 1, withPair: 4, conductor: 'tip', end: 'from' }],
+    repair: [{ kind: 'cable-pair', cable: 'front-cord', pair: 1 }],
+    explanation:
+      "When the front desk cord was re-made, the tip of pair 1 (line 1) and the tip of pair 4 (line 2) were exchanged at the set end: a split pair. Each line's loop at the front desk ran from one line's tip to the other line's ring, so neither gave dial tone there, while the A-leads on pairs 2 and 5 still lit the lamps; with both lines in use the two circuits also hum into each other. Re-terminating pairs 1 and 4 on their own colours cures it.",
   },
 ];
 
