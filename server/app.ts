@@ -129,7 +129,10 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
   api.use('/admin', adminRoutes({ users, audit, auth, sessions }));
   api.use('/plans', accountWriteLimit(config.planWritesPerMinute));
   api.use(plansLibraryRoutes({ db, config, mailer, logger: log }));
-  api.use('/training', trainingRoutes({ db, mailer, sessions, logger: log, publicOrigin: config.publicOrigin }));
+  api.use(
+    '/training',
+    trainingRoutes({ db, mailer, sessions, logger: log, publicOrigin: config.publicOrigin }),
+  );
   api.use(apiNotFound);
   app.use('/api', api);
 
