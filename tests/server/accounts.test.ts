@@ -3,7 +3,7 @@ import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { generate } from 'otplib';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import {
   AccountExportSchema,
   AccountSchema,
@@ -19,20 +19,14 @@ import {
   mailTo,
   minimalPlan,
   signedInAgent,
+  serverForFile,
   startTestServer,
   TEST_PASSWORD,
   tokenIn,
   uniqueEmail,
-  type TestServer,
 } from './server.harness';
 
-let server: TestServer;
-beforeAll(async () => {
-  server = await startTestServer({ EMAIL_VERIFICATION: 'true' });
-});
-afterAll(async () => {
-  await server.close();
-});
+const server = serverForFile({ EMAIL_VERIFICATION: 'true' });
 
 const errorOf = (body: unknown) => ErrorBodySchema.parse(body).error;
 const NEW_PASSWORD = 'lamp lead wink cadence'; // zxcvbn score 4 (checked by the strength tests below)
