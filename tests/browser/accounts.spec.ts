@@ -98,10 +98,16 @@ describe.skipIf(!chromiumPath)(
       await page.getByTestId('verification-sent').waitFor();
       expect(await page.getByTestId('verification-sent').innerText()).toContain(member.email);
 
-      // Not confirmed yet: the password alone does not sign in.
+      // Not confirmed yet: the password alone does not sign in, and a fresh link replaces the first.
+      const confirmMails = () =>
+        smtp.messages.filter(
+          (m) => m.to.includes(member.email) && /Confirm your Leadbench e-mail/.test(m.subject),
+        );
+      await expect.poll(() => confirmMails().length, { timeout: 10_000 }).toBe(1);
       await signIn(page, baseUrl, member.email, member.password);
-      await page.getByTestId('form-error').waitFor();
+      await page.getByTestId('form-error').filter({ hasText: 'Confirm your e-mail address first' }).waitFor();
       expect(page.url()).toContain('/sign-in');
+      await expect.poll(() => confirmMails().length, { timeout: 10_000 }).toBe(2);
 
       const link = await mailedLink(smtp, member.email, '/verify-email', /Confirm your Leadbench e-mail/);
       await page.goto(link);
