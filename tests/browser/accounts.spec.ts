@@ -91,6 +91,7 @@ describe.skipIf(!chromiumPath)(
       rmSync(dir, { recursive: true, force: true });
     });
 
+    // ASVS 4.0.3 V2.7.3 (the mailed token works once, for this account only).
     it('signs up, refuses sign-in until the mailed link confirms the address, and the link works once', async () => {
       const { page } = await browser();
       const errors = collectPageErrors(page);
@@ -121,6 +122,7 @@ describe.skipIf(!chromiumPath)(
       expect(errors).toEqual([]);
     });
 
+    // ASVS 4.0.3 V3.3.4 (the user sees their active sessions and can end them).
     it('lists both sessions of one account and ends the other one with "sign out everywhere else"', async () => {
       const laptop = await browser();
       const workshop = await browser();
@@ -147,6 +149,7 @@ describe.skipIf(!chromiumPath)(
       expect(errors).toEqual([]);
     });
 
+    // ASVS 4.0.3 V2.5.6 (recovery by a mailed, single-use token).
     it('resets a forgotten password from the mailed link, once', async () => {
       const { page } = await browser();
       const errors = collectPageErrors(page);
@@ -176,6 +179,7 @@ describe.skipIf(!chromiumPath)(
       expect(errors).toEqual([]);
     });
 
+    // ASVS 4.0.3 V2.8.1 (TOTP before administration), V4.1.1 and V7.2.2 (administrative actions are logged).
     it('lets an admin with an authenticator disable, enable, reset, invite and delete, each in the audit log', async () => {
       const { page } = await browser();
       const errors = collectPageErrors(page);
