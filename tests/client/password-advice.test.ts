@@ -5,10 +5,13 @@ import SignUpForm from '@/components/forms/SignUpForm.vue';
 describe('new-password advice (OWASP ASVS 4.0.3 V2.1.7, V2.1.8)', () => {
   it('loads the strength estimate after typing stops, shows its advice and keeps a weak password from being sent', async () => {
     const wrapper = mount(SignUpForm, { attachTo: document.body });
-    await wrapper.get('#sign-up-name').setValue('Ada Linesman');
-    await wrapper.get('#sign-up-email').setValue('ada@example.org');
-    // 12 characters, so the length rule passes; "password" + digits is in zxcvbn's common-password list.
-    await wrapper.get('#sign-up-password').setValue('password1234');
+    const fields = {
+      'sign-up-name': 'Ada Linesman',
+      'sign-up-email': 'ada@example.org',
+      // 12 characters, so the length rule passes; "password" + digits is in zxcvbn's common-password list.
+      'sign-up-password': 'password1234',
+    };
+    for (const [id, value] of Object.entries(fields)) await wrapper.get(`#${id}`).setValue(value);
 
     await vi.waitFor(() => expect(wrapper.text()).toContain('This password is easy to guess.'), {
       timeout: 10_000,
