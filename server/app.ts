@@ -8,7 +8,6 @@ import { fileURLToPath } from 'node:url';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pino, type Logger } from 'pino';
-import { pinoHttp } from 'pino-http';
 import { accountRoutes } from './account/account.routes';
 import { adminRoutes } from './admin/admin.routes';
 import { auditRepo } from './admin/audit.repo';
@@ -24,6 +23,7 @@ import type { Database } from './db/database';
 import { healthRoutes } from './health.routes';
 import { apiNotFound, errorHandler, sendError } from './http/error-handler';
 import { originCheck } from './http/origin-check';
+import { requestLog } from './http/request-log';
 import { accountWriteLimit } from './http/rate-limit';
 import type { Mailer } from './mail/mailer';
 import { plansLibraryRoutes } from './plans/plans-library';
@@ -79,6 +79,9 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
 
   const app = express();
   app.disable('x-powered-by');
+  // API answers are Cache-Control: no-store, so nobody revalidates them; hashing each body for an ETag is
+  // wasted work. Static files keep theirs (express.static sets its own).
+  app.set('etag', false);
   app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
@@ -110,21 +113,7 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
     res.setHeader('Permissions-Policy', PERMISSIONS_POLICY);
     next();
   });
-  app.use(
-    pinoHttp({
-      logger: log,
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-      // Method, path and status only: headers would put session cookies into the log.
-      serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({
-          id: req.id,
-          method: req.method,
-          url: req.url,
-        }),
-        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
-      },
-    }),
-  );
+  app.use(requestLog(log));
 
   const api = express.Router();
   api.use(express.json({ limit: JSON_LIMIT }));
@@ -140,7 +129,10 @@ export function createApp({ db, config, mailer, logger, clientDir = DEFAULT_CLIE
   api.use('/admin', adminRoutes({ users, audit, auth, sessions }));
   api.use('/plans', accountWriteLimit(config.planWritesPerMinute));
   api.use(plansLibraryRoutes({ db, config, mailer, logger: log }));
-  api.use('/training', trainingRoutes({ db, mailer, sessions, logger: log, publicOrigin: config.publicOrigin }));
+  api.use(
+    '/training',
+    trainingRoutes({ db, mailer, sessions, logger: log, publicOrigin: config.publicOrigin }),
+  );
   api.use(apiNotFound);
   app.use('/api', api);
 

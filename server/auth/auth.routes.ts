@@ -3,18 +3,13 @@
  * mail-link endpoints (verify, forgot, reset). Public unless marked.
  */
 import { Router, type Request, type Response } from 'express';
+import { ForgotPasswordSchema, TokenBodySchema, TotpCodeSchema } from '../../shared/schemas/account.schema';
+import { SignInSchema, type SessionInfo } from '../../shared/schemas/auth.schema';
 import {
-  ForgotPasswordSchema,
-  ResetPasswordSchema,
-  TokenBodySchema,
-  TotpCodeSchema,
-} from '../../shared/schemas/account.schema';
-import {
-  ChangePasswordSchema,
-  SignInSchema,
-  SignUpSchema,
-  type SessionInfo,
-} from '../../shared/schemas/auth.schema';
+  StrongChangePasswordSchema,
+  StrongResetPasswordSchema,
+  StrongSignUpSchema,
+} from '../../shared/schemas/password-strength';
 import { currentUser, requireSignedIn } from '../http/auth.middleware';
 import { HttpError } from '../http/http-error';
 import { accountWriteLimit, authRateLimit, type RateLimitOptions } from '../http/rate-limit';
@@ -37,7 +32,7 @@ export function authRoutes(auth: AuthService, sessions: SessionService, rateLimi
   }
 
   router.post('/sign-up', limiter, async (req, res) => {
-    const input = parseBody(SignUpSchema, req);
+    const input = parseBody(StrongSignUpSchema, req);
     const user = await auth.signUp(input);
     if (!user) {
       res.status(202).json({ user: null, verificationSent: true } satisfies SessionInfo);
@@ -95,7 +90,7 @@ export function authRoutes(auth: AuthService, sessions: SessionService, rateLimi
   });
 
   router.post('/password', requireSignedIn, passwordLimit, async (req, res) => {
-    const input = parseBody(ChangePasswordSchema, req);
+    const input = parseBody(StrongChangePasswordSchema, req);
     const user = currentUser(res);
     await auth.changePassword(user.id, input);
     // Every other device is signed out; this one gets a fresh session.
@@ -118,7 +113,7 @@ export function authRoutes(auth: AuthService, sessions: SessionService, rateLimi
   });
 
   router.post('/reset-password', limiter, async (req, res) => {
-    const input = parseBody(ResetPasswordSchema, req);
+    const input = parseBody(StrongResetPasswordSchema, req);
     const userId = await auth.resetPassword(input);
     await sessions.endAll(userId);
     sessions.clearCookie(res);

@@ -1,5 +1,6 @@
 /** Sessions table: rows are keyed by the SHA-256 of the session id, so a leaked table signs nobody in. */
 import type { Database } from '../db/database';
+import { preparedRead } from '../db/prepared';
 import type { UserRow } from '../users/users.repo';
 
 export interface SessionRow {
@@ -12,25 +13,32 @@ export interface SessionRow {
   pending_second_factor: number | boolean;
 }
 
+interface SessionWithUserRow extends UserRow {
+  s_created_at: number;
+  s_last_used_at: number;
+  s_expires_at: number;
+  s_user_agent: string;
+  s_pending_second_factor: number;
+}
+
 export function sessionsRepo(db: Database) {
+  const withUser = preparedRead<SessionWithUserRow>(
+    db,
+    `select sessions.created_at as s_created_at, sessions.last_used_at as s_last_used_at,
+       sessions.expires_at as s_expires_at, sessions.user_agent as s_user_agent,
+       sessions.pending_second_factor as s_pending_second_factor, users.*
+     from sessions join users on users.id = sessions.user_id
+     where sessions.id = ?`,
+  );
+
   return {
     async insert(row: SessionRow): Promise<void> {
       await db('sessions').insert(row);
     },
 
-    /** One query per request: the session and its account together. */
+    /** One query per request, prepared once: the session and its account together. */
     async findWithUser(id: string): Promise<{ session: SessionRow; user: UserRow } | null> {
-      const row = await db('sessions')
-        .join('users', 'users.id', 'sessions.user_id')
-        .where('sessions.id', id)
-        .first(
-          'sessions.created_at as s_created_at',
-          'sessions.last_used_at as s_last_used_at',
-          'sessions.expires_at as s_expires_at',
-          'sessions.user_agent as s_user_agent',
-          'sessions.pending_second_factor as s_pending_second_factor',
-          'users.*',
-        );
+      const row = await withUser.get(id);
       if (!row) return null;
       const { s_created_at, s_last_used_at, s_expires_at, s_user_agent, s_pending_second_factor, ...user } =
         row;
@@ -44,7 +52,7 @@ export function sessionsRepo(db: Database) {
           user_agent: s_user_agent,
           pending_second_factor: s_pending_second_factor,
         },
-        user: user as UserRow,
+        user,
       };
     },
 

@@ -1,4 +1,5 @@
 /** Request budgets (per address or per account); they answer in our error shape. */
+import type { RequestHandler } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { sendError } from './error-handler';
 
@@ -31,12 +32,12 @@ export function accountWriteLimit(
   message = 'Too many changes in a short time.',
 ) {
   const minutes = Math.max(1, Math.round(windowMs / 60_000));
-  return rateLimit({
+  const limiter = rateLimit({
     windowMs,
     limit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    skip: (req, res) => SAFE_METHODS.has(req.method) || !res.locals.user,
+    skip: (_req, res) => !res.locals.user,
     keyGenerator: (_req, res) => `user:${res.locals.user!.id}`,
     handler: (_req, res) => {
       sendError(
@@ -47,4 +48,8 @@ export function accountWriteLimit(
       );
     },
   });
+  // Reads never count; they skip the limiter before it does any work (it sits in front of every plan read).
+  const limitWrites: RequestHandler = (req, res, next) =>
+    SAFE_METHODS.has(req.method) ? next() : limiter(req, res, next);
+  return limitWrites;
 }

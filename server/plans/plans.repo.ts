@@ -12,6 +12,7 @@ import type {
   RevisionReason,
 } from '../../shared/schemas/plan-revisions.schema';
 import type { Database } from '../db/database';
+import { preparedRead } from '../db/prepared';
 import { newId } from '../users/users.repo';
 import { openFaultCount } from './plan-facts';
 
@@ -182,8 +183,33 @@ export function plansRepo(db: Database) {
     };
   }
 
+  /**
+   * The same rule as `visible` and the same answer as `record`, in one statement prepared once, for the read
+   * every opened plan makes.
+   */
+  const visibleRecord = preparedRead<ListedRow & { document: string; revision: number | null }>(
+    db,
+    `select ${SUMMARY_COLUMNS.join(', ')}, plans.document, users.display_name as owner_name, ${sharedFlag.toQuery()},
+       (select max(r.number) from plan_revisions r where r.plan_id = plans.id) as revision
+     from plans join users on users.id = plans.owner_id
+     where plans.id = ? and plans.deleted_at is null and (plans.owner_id = ? or exists (
+       select 1 from plan_shares s where s.plan_id = plans.id and s.kind = 'user' and s.email = ? and s.revoked_at is null))`,
+  );
+
   return {
     record,
+
+    /**
+     * A plan this viewer may see as the JSON text of its `PlanRecord`, or null. The stored document was
+     * checked and serialised when it was written, so it goes out as stored instead of parsed and re-serialised.
+     */
+    async visibleRecordJson(id: string, viewer: Viewer): Promise<string | null> {
+      const row = await visibleRecord.get(id, viewer.id, viewer.email);
+      if (!row) return null;
+      const { document, revision, ...listed } = row;
+      const summary = JSON.stringify(toSummary(listed, viewer)).slice(0, -1);
+      return `${summary},"document":${document},"revision":${Number(revision ?? 0)}}`;
+    },
 
     /** Every plan the viewer owns (deleted ones left out), whole: for the download of one's own data. */
     async ownRecords(viewer: Viewer): Promise<PlanRecord[]> {

@@ -77,7 +77,9 @@ export function plansRoutes(
 
   router.get('/:id', async (req, res) => {
     const { id } = parseParams(PlanIdParams, req);
-    res.json(await service.get(id, currentUser(res)));
+    const record = await plans.visibleRecordJson(id, viewerOf(currentUser(res)));
+    if (!record) throw notFound('That plan');
+    res.type('json').send(record);
   });
 
   router.put('/:id', async (req, res) => {

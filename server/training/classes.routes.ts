@@ -6,7 +6,8 @@ import { createHash, randomBytes } from 'node:crypto';
 import { Router, type Response } from 'express';
 import type { Logger } from 'pino';
 import { z } from 'zod';
-import { PasswordSchema, type User } from '../../shared/schemas/auth.schema';
+import type { User } from '../../shared/schemas/auth.schema';
+import { StrongPasswordSchema } from '../../shared/schemas/password-strength';
 import {
   AcceptInvitationSchema,
   CreateAssignmentSchema,
@@ -219,7 +220,7 @@ export function classesRoutes({ classes, puzzles, users, mailer, sessions, logge
         throw new HttpError(401, 'UNAUTHENTICATED', `An account for ${invitation.email} exists: sign in, then open the link again.`);
       const details: Record<string, string[]> = {};
       if (!input.displayName) details.displayName = ['Enter your name'];
-      const password = PasswordSchema.safeParse(input.password);
+      const password = StrongPasswordSchema.safeParse(input.password);
       if (!password.success) details.password = [password.error.issues[0].message];
       if (Object.keys(details).length)
         throw new HttpError(400, 'VALIDATION_FAILED', 'Choose your name and a password to create your trainee account.', details);

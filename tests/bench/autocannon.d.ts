@@ -7,7 +7,7 @@ declare module 'autocannon' {
     headers?: Record<string, string>;
   }
   interface Result {
-    requests: { average: number };
+    requests: { average: number; total: number };
     latency: { p99: number };
     errors: number;
     non2xx: number;

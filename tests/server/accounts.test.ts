@@ -3,7 +3,7 @@ import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { generate } from 'otplib';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import {
   AccountExportSchema,
   AccountSchema,
@@ -19,20 +19,14 @@ import {
   mailTo,
   minimalPlan,
   signedInAgent,
+  serverForFile,
   startTestServer,
   TEST_PASSWORD,
   tokenIn,
   uniqueEmail,
-  type TestServer,
 } from './server.harness';
 
-let server: TestServer;
-beforeAll(async () => {
-  server = await startTestServer({ EMAIL_VERIFICATION: 'true' });
-});
-afterAll(async () => {
-  await server.close();
-});
+const server = serverForFile({ EMAIL_VERIFICATION: 'true' });
 
 const errorOf = (body: unknown) => ErrorBodySchema.parse(body).error;
 const NEW_PASSWORD = 'lamp lead wink cadence'; // zxcvbn score 4 (checked by the strength tests below)
@@ -140,6 +134,28 @@ describe('password strength and change (ASVS 4.0.3 V2.1.7, V2.1.8, V2.2.3)', () 
       .send({ email: uniqueEmail(), displayName: 'Weak', password });
     expect(res.status).toBe(400);
     expect(errorOf(res.body).details?.password?.[0]).toMatch(/^This password is easy to guess\./);
+  });
+
+  it('refuses a guessable new password on change and on reset as on sign-up', async () => {
+    const { agent, user } = await signedInAgent(server);
+    const change = await agent
+      .post('/api/auth/password')
+      .send({ currentPassword: TEST_PASSWORD, newPassword: 'passwordpassword' });
+    expect(change.status).toBe(400);
+    expect(errorOf(change.body).details?.newPassword?.[0]).toMatch(/^This password is easy to guess\./);
+
+    await request(server.app).post('/api/auth/forgot-password').send({ email: user.email });
+    const token = tokenIn((await mailTo(server, user.email, /new Leadbench password/)).raw);
+    const reset = await request(server.app)
+      .post('/api/auth/reset-password')
+      .send({ token, password: 'passwordpassword' });
+    expect(reset.status).toBe(400);
+    expect(errorOf(reset.body).details?.password?.[0]).toMatch(/^This password is easy to guess\./);
+    // The refused reset did not use up the link.
+    expect(
+      (await request(server.app).post('/api/auth/reset-password').send({ token, password: NEW_PASSWORD }))
+        .status,
+    ).toBe(204);
   });
 
   it('mails the owner on change and limits changes with 429', async () => {

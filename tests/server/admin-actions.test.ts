@@ -1,26 +1,15 @@
 /** Admin actions on accounts, each written to the audit log (ASVS 4.0.3 V7.1.3, V7.2.2, V4.1.1). */
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { AuditListSchema } from '../../shared/schemas/account.schema';
 import { AdminUserSchema, UserListSchema } from '../../shared/schemas/auth.schema';
 import { ErrorBodySchema } from '../../shared/schemas/error.schema';
-import {
-  mailTo,
-  signedInAgent,
-  startTestServer,
-  TEST_PASSWORD,
-  uniqueEmail,
-  type TestServer,
-} from './server.harness';
+import { mailTo, signedInAgent, serverForFile, TEST_PASSWORD, uniqueEmail } from './server.harness';
 
-let server: TestServer;
+const server = serverForFile();
 let admin: Awaited<ReturnType<typeof signedInAgent>>;
 beforeAll(async () => {
-  server = await startTestServer();
   admin = await signedInAgent(server, 'admin');
-});
-afterAll(async () => {
-  await server.close();
 });
 
 const errorOf = (body: unknown) => ErrorBodySchema.parse(body).error;

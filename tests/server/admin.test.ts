@@ -1,15 +1,14 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '../../shared/schemas/error.schema';
 import { UserListSchema, UserSchema, type User } from '../../shared/schemas/auth.schema';
-import { signedInAgent, startTestServer, type TestServer } from './server.harness';
+import { serverForFile, signedInAgent } from './server.harness';
 
-let server: TestServer;
+const server = serverForFile();
 let admin: Awaited<ReturnType<typeof signedInAgent>>;
 const people: User[] = [];
 
 beforeAll(async () => {
-  server = await startTestServer();
   admin = await signedInAgent(server, 'admin', 'zed.admin@listed.test');
   // Arrange a small, known population (names invented for the tests).
   const specs = [
@@ -19,9 +18,6 @@ beforeAll(async () => {
     ['restorer', 'rita.tip@listed.test'],
   ] as const;
   for (const [role, email] of specs) people.push((await signedInAgent(server, role, email)).user);
-});
-afterAll(async () => {
-  await server.close();
 });
 
 const errorOf = (body: unknown) => ErrorBodySchema.parse(body).error;

@@ -1,25 +1,13 @@
 import { createHash } from 'node:crypto';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { ErrorBodySchema } from '../../shared/schemas/error.schema';
 import { PlanListSchema } from '../../shared/schemas/plans.schema';
 import { SessionInfoSchema } from '../../shared/schemas/auth.schema';
 import { SESSION_COOKIE } from '../../server/auth/sessions';
-import {
-  signedInAgent,
-  startTestServer,
-  TEST_PASSWORD,
-  uniqueEmail,
-  type TestServer,
-} from './server.harness';
+import { signedInAgent, serverForFile, TEST_PASSWORD, uniqueEmail } from './server.harness';
 
-let server: TestServer;
-beforeAll(async () => {
-  server = await startTestServer();
-});
-afterAll(async () => {
-  await server.close();
-});
+const server = serverForFile();
 
 const errorOf = (body: unknown) => ErrorBodySchema.parse(body).error;
 const sessionCookie = (res: request.Response): string | undefined =>

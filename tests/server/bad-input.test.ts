@@ -4,20 +4,16 @@
  * V13.2.2 / V11.1.4 (request sizes and business limits against resource exhaustion), from memory.
  */
 import fc from 'fast-check';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '../../shared/schemas/error.schema';
 import { MAX_PROBLEMS_LISTED } from '../../server/http/validate';
-import { minimalPlan, planWithSets, signedInAgent, startTestServer, type TestServer } from './server.harness';
+import { minimalPlan, planWithSets, serverForFile, signedInAgent, startTestServer } from './server.harness';
 
-let server: TestServer;
+const server = serverForFile({ PLAN_WRITES_PER_MINUTE: '100000' });
 let owner: Awaited<ReturnType<typeof signedInAgent>>;
 
 beforeAll(async () => {
-  server = await startTestServer({ PLAN_WRITES_PER_MINUTE: '100000' });
   owner = await signedInAgent(server);
-});
-afterAll(async () => {
-  await server.close();
 });
 
 const errorOf = (body: unknown) => ErrorBodySchema.parse(body).error;

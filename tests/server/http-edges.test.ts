@@ -2,6 +2,7 @@
 import { gzipSync } from 'node:zlib';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { pino } from 'pino';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '../../shared/schemas/error.schema';
@@ -53,5 +54,28 @@ describe('headers (ASVS 4.0.3 V14.4.x)', () => {
     expect(policy).toContain('camera=()');
     expect(policy).toContain('microphone=()');
     expect(policy).toContain('geolocation=()');
+  });
+});
+
+describe('request log (ASVS 4.0.3 V7.1.1: no credentials or session tokens in logs)', () => {
+  it('writes method, path and status of an API request, nothing of its headers or query', async () => {
+    const lines: string[] = [];
+    const logger = pino({ level: 'info' }, { write: (line: string) => void lines.push(line) });
+    const logged = await startTestServer({}, { logger });
+    try {
+      await request(logged.app)
+        .get('/api/plans?q=lamp-secret')
+        .set('Cookie', 'leadbench_session=cookie-secret-value');
+      const entry = JSON.parse(lines.find((l) => l.includes('request completed')) ?? '{}') as {
+        req?: unknown;
+        res?: unknown;
+      };
+      expect(entry.req).toEqual({ method: 'GET', url: '/api/plans' });
+      expect(entry.res).toEqual({ statusCode: 401 }); // the cookie names no session: not signed in
+      expect(lines.join('\n')).not.toContain('cookie-secret-value');
+      expect(lines.join('\n')).not.toContain('lamp-secret');
+    } finally {
+      await logged.close();
+    }
   });
 });

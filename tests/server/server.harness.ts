@@ -8,9 +8,10 @@ import { join } from 'node:path';
 import type { Express } from 'express';
 import { pino } from 'pino';
 import request from 'supertest';
-import { expect, vi } from 'vitest';
+import { afterAll, beforeAll, expect, vi } from 'vitest';
 import type { Plan } from '../../shared/engine/document/plan.schema';
 import { UserSchema, type Role, type User } from '../../shared/schemas/auth.schema';
+import type { Logger } from 'pino';
 import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import { migrateLatest, openDatabase, type Database } from '../../server/db/database';
@@ -35,32 +36,33 @@ export interface TestServer {
   close(): Promise<void>;
 }
 
+export interface TestServerOptions {
+  clientDir?: string;
+  /** The app's logger; silent unless a test reads what is logged. */
+  logger?: Logger;
+}
+
+const mailerTo = (smtp: FakeSmtp): Mailer =>
+  createMailer({ host: smtp.host, port: smtp.port, from: 'bench@leadbench.test', plain: true });
+
+const testConfig = (env: Record<string, string>) =>
+  loadConfig({ LOG_LEVEL: 'silent', RATE_LIMIT_MAX: '1000', PORT: '3000', ...env });
+
 export async function startTestServer(
   env: Record<string, string> = {},
-  options: { clientDir?: string } = {},
+  options: TestServerOptions = {},
 ): Promise<TestServer> {
   const dir = mkdtempSync(join(tmpdir(), 'leadbench-server-'));
   const db = openDatabase(join(dir, 'test.sqlite'));
   await migrateLatest(db);
   const smtp = await startFakeSmtp();
-  const mailer: Mailer = createMailer({
-    host: smtp.host,
-    port: smtp.port,
-    from: 'bench@leadbench.test',
-    plain: true,
-  });
-  const config = loadConfig({
-    LOG_LEVEL: 'silent',
-    RATE_LIMIT_MAX: '1000',
-    PORT: '3000',
-    DATABASE_FILE: join(dir, 'test.sqlite'),
-    ...env,
-  });
+  const mailer = mailerTo(smtp);
+  const config = testConfig({ DATABASE_FILE: join(dir, 'test.sqlite'), ...env });
   const app = createApp({
     db,
     config,
     mailer,
-    logger: pino({ level: 'silent' }),
+    logger: options.logger ?? pino({ level: 'silent' }),
     clientDir: options.clientDir ?? join(dir, 'no-client-build'),
   });
   return {
@@ -75,6 +77,36 @@ export async function startTestServer(
       rmSync(dir, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * One server for the whole test file: started before its first test, closed after its last. The object is
+ * filled in when the server has started, so tests use it as they would the server itself.
+ */
+export function serverForFile(env: Record<string, string> = {}, options: TestServerOptions = {}): TestServer {
+  const server = {} as TestServer;
+  beforeAll(async () => {
+    Object.assign(server, await startTestServer(env, options));
+  });
+  afterAll(async () => {
+    await server.close?.();
+  });
+  return server;
+}
+
+/**
+ * A second app on the same database, as the server is after a restart; `close` ends only its mailer
+ * (the database and the mail server stay with the first).
+ */
+export function restartedApp(server: TestServer, env: Record<string, string> = {}) {
+  const mailer = mailerTo(server.smtp);
+  const app = createApp({
+    db: server.db,
+    config: testConfig(env),
+    mailer,
+    logger: pino({ level: 'silent' }),
+  });
+  return { app, close: () => mailer.close() };
 }
 
 let counter = 0;
