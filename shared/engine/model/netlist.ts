@@ -1,6 +1,7 @@
 /**
  * The model layer: a plan turned into terminals, wires, loads (elements) and contacts.
- * Built once per plan object (cached in a WeakMap); lead changes and the KSU cross-connect are applied here.
+ * Built once per plan object (cached in a WeakMap), from part wirings cached by content (an edit rewires only the
+ * part it changed); lead changes and the KSU cross-connect are applied here.
  * Wires never change with the state, so their connectivity is solved once (static components); per state only the
  * closed contacts are unioned over those components (see nets.ts).
  */
@@ -145,10 +146,11 @@ function find(parent: Int32Array, x: number): number {
 
 const cache = new WeakMap<Plan, Netlist>();
 
-export function getNetlist(plan: Plan): Netlist {
+/** The plan's netlist, built on first use (`cached: false`: with no part wiring reused, for tests). */
+export function getNetlist(plan: Plan, options: { cached?: boolean } = {}): Netlist {
   let nl = cache.get(plan);
   if (!nl) {
-    nl = buildNetlist(plan);
+    nl = buildNetlist(plan, options);
     cache.set(plan, nl);
   }
   return nl;
@@ -166,6 +168,8 @@ interface Builder {
   contactEdges: Edge[];
   contacts: ContactInfo[];
   elements: ElementInfo[];
+  /** Reuse part wirings from earlier builds (see wireCached). */
+  cached: boolean;
 }
 
 interface KsuTerminals {
@@ -175,8 +179,9 @@ interface KsuTerminals {
   stations: StationInfo[];
 }
 
-function newBuilder(): Builder {
+function newBuilder(cached: boolean): Builder {
   return {
+    cached,
     parts: [],
     partById: new Map(),
     terminals: [],
@@ -456,6 +461,81 @@ function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly
   }
 }
 
+/** What one part's wiring added to the builder, made at terminal id `termBase` and contact index `contactBase`. */
+interface PartWiring {
+  termBase: number;
+  contactBase: number;
+  terminals: TerminalInfo[];
+  termNames: string[];
+  pinIds: Map<string, Int32Array> | undefined;
+  edges: Edge[];
+  contactEdges: Edge[];
+  contacts: ContactInfo[];
+  elements: ElementInfo[];
+}
+
+/**
+ * Part wirings by content: after an edit in the Bench (one part at a time, a new plan object) every other part is
+ * wired exactly as before. A part's terminals are all made while it is wired, so its wiring depends only on its
+ * own data, its index and the set that owns it (all in the key), up to where its terminal ids and contact indices
+ * start: a hit made at the same ids pushes the same objects again, one made elsewhere pushes them shifted. Either
+ * way equal to what a fresh build makes. Netlists never change after build, so sharing the objects is safe.
+ */
+const partWirings = new Map<string, PartWiring>();
+const PART_WIRINGS_MAX = 4000;
+
+const shiftEdge = (e: Edge, dt: number, dc: number): Edge =>
+  e.contact === undefined
+    ? { ...e, a: e.a + dt, b: e.b + dt }
+    : { ...e, a: e.a + dt, b: e.b + dt, contact: e.contact + dc };
+
+function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
+  const dt = b.terminals.length - w.termBase;
+  const dc = b.contacts.length - w.contactBase;
+  for (const t of w.terminals) b.terminals.push(t);
+  w.termNames.forEach((name, i) => b.terminalIndex.set(name, b.terminals.length - w.terminals.length + i));
+  if (w.pinIds) {
+    const byPort = new Map<string, Int32Array>();
+    for (const [port, ids] of w.pinIds) byPort.set(port, ids.map((id) => (id < 0 ? id : id + dt)));
+    b.pinIds[p.index] = byPort;
+  }
+  if (dt === 0 && dc === 0) {
+    for (const e of w.edges) b.edges.push(e);
+    for (const e of w.contactEdges) b.contactEdges.push(e);
+    for (const c of w.contacts) b.contacts.push(c);
+    for (const e of w.elements) b.elements.push(e);
+    return;
+  }
+  for (const e of w.edges) b.edges.push(shiftEdge(e, dt, dc));
+  for (const e of w.contactEdges) b.contactEdges.push(shiftEdge(e, dt, dc));
+  for (const c of w.contacts) b.contacts.push({ ...c, a: c.a + dt, b: c.b + dt });
+  for (const e of w.elements) b.elements.push({ ...e, a: e.a + dt, b: e.b + dt });
+}
+
+function wireCached(b: Builder, p: PartInfo, data: unknown, ownerSet: number, wire: () => void): void {
+  if (!b.cached) return wire();
+  const key = `${p.index}|${ownerSet}|${p.kind}|${JSON.stringify(data)}`;
+  const hit = partWirings.get(key);
+  if (hit) return pushWiring(b, p, hit);
+  const at = [b.terminals.length, b.edges.length, b.contactEdges.length, b.contacts.length, b.elements.length];
+  wire();
+  const terminals = b.terminals.slice(at[0]);
+  const pins = b.pinIds[p.index];
+  if (partWirings.size >= PART_WIRINGS_MAX) partWirings.clear();
+  partWirings.set(key, {
+    termBase: at[0],
+    contactBase: at[3],
+    terminals,
+    termNames: terminals.map((t) => `${p.index}|${t.name}`),
+    // as the part left them: cables fill in more pins later, on the builder's copy
+    pinIds: pins && new Map([...pins].map(([port, ids]) => [port, ids.slice()])),
+    edges: b.edges.slice(at[1]),
+    contactEdges: b.contactEdges.slice(at[2]),
+    contacts: b.contacts.slice(at[3]),
+    elements: b.elements.slice(at[4]),
+  });
+}
+
 /** Every part's wiring: sets (then their ringers), add-ons, adapters, in plan order. */
 function wireParts(
   b: Builder,
@@ -467,11 +547,19 @@ function wireParts(
   plan.sets.forEach((s, i) => {
     const info = sets[i];
     const p = b.parts[info.part];
-    wirePart(b, p, s.leadChanges, info.index);
-    addRingers(b, p, info, s.ringerLines);
+    wireCached(b, p, s, info.index, () => {
+      wirePart(b, p, s.leadChanges, info.index);
+      addRingers(b, p, info, s.ringerLines);
+    });
   });
-  plan.addOns.forEach((a, i) => wirePart(b, addOnParts[i], a.leadChanges, addOnParts[i].servesSet));
-  plan.adapters.forEach((a, i) => wirePart(b, adapterParts[i], [], -1, a.bridgedPairs));
+  plan.addOns.forEach((a, i) => {
+    const p = addOnParts[i];
+    wireCached(b, p, a, p.servesSet, () => wirePart(b, p, a.leadChanges, p.servesSet));
+  });
+  plan.adapters.forEach((a, i) => {
+    const p = adapterParts[i];
+    wireCached(b, p, a, -1, () => wirePart(b, p, [], -1, a.bridgedPairs));
+  });
 }
 
 function portExists(plan: Plan, part: PartInfo, port: string): boolean {
@@ -560,9 +648,12 @@ function denseComponents(
   return { dense, denseCount: rootDense.size, hot };
 }
 
-/** The phases in the order terminals and edges are made (ids and edge order follow it, and so do paths). */
-export function buildNetlist(plan: Plan): Netlist {
-  const b = newBuilder();
+/**
+ * The phases in the order terminals and edges are made (ids and edge order follow it, and so do paths). With
+ * `cached: false` every part is wired afresh (tests compare the two).
+ */
+export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Netlist {
+  const b = newBuilder(options.cached !== false);
   const ksu = addKsuTerminals(b, plan);
   wireCrossConnect(b, plan, ksu);
   const sets = addSets(b, plan);
