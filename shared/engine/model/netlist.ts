@@ -244,9 +244,11 @@ function pinTerm(b: Builder, part: number, port: string, pin: number): number {
   return ids[pin];
 }
 
-/** The KSU's own terminals first: ground, each line circuit's T/R/A/L and each station's buzzer output. */
-function addKsuTerminals(b: Builder, plan: Plan): KsuTerminals {
-  const ksuPart = addPart(b, plan.ksu.id, plan.ksu.name, 'ksu', getTemplate('ksu'));
+/**
+ * The KSU's own terminals first: ground, each line circuit's T/R/A/L and each station's buzzer output (made on
+ * the first call, found on the next).
+ */
+function ksuTerminals(b: Builder, plan: Plan, ksuPart: PartInfo): KsuTerminals {
   const k = ksuPart.index;
   const gnd = term(b, k, 'GND');
   const lines: LineInfo[] = plan.ksu.lines.map((l) => ({
@@ -475,8 +477,8 @@ interface PartWiring {
 }
 
 /**
- * Part wirings by content: after an edit in the Bench (one part at a time, a new plan object) every other part is
- * wired exactly as before. A part's terminals are all made while it is wired, so its wiring depends only on its
+ * Part wirings by content (the KSU's with its cross-connect too): after an edit in the Bench (one part at a time, a
+ * new plan object) every other part is wired exactly as before. A part's terminals are all made while it is wired, so its wiring depends only on its
  * own data, its index and the set that owns it (all in the key), up to where its terminal ids and contact indices
  * start: a hit made at the same ids pushes the same objects again, one made elsewhere pushes them shifted. Either
  * way equal to what a fresh build makes. Netlists never change after build, so sharing the objects is safe.
@@ -614,29 +616,30 @@ function denseComponents(
 ): Pick<Netlist, 'dense' | 'denseCount' | 'hot'> {
   const n = b.terminals.length;
   const dense = new Int32Array(n).fill(-1);
-  const rootDense = new Map<number, number>();
+  // static root → dense id (-1: none yet); roots are terminal ids
+  const rootDense = new Int32Array(n).fill(-1);
+  let denseCount = 0;
   const mark = (t: number): number => {
     const r = staticRoot[t];
-    let d = rootDense.get(r);
-    if (d === undefined) {
-      d = rootDense.size;
-      rootDense.set(r, d);
-    }
+    let d = rootDense[r];
+    if (d < 0) d = rootDense[r] = denseCount++;
     dense[t] = d;
     return d;
   };
   mark(ksu.gnd);
   for (const l of ksu.lines) [l.t, l.r, l.a, l.l].forEach(mark);
   for (const s of ksu.stations) [s.t, s.r].forEach(mark);
-  for (const e of b.elements) [e.a, e.b].forEach(mark);
+  for (const e of b.elements) {
+    mark(e.a);
+    mark(e.b);
+  }
   const hotList: ContactInfo[] = [];
   for (const c of b.contacts) {
     const da = mark(c.a);
     const db = mark(c.b);
     if (da !== db && c.mech >= 0) hotList.push(c);
   }
-  for (let i = 0; i < n; i++)
-    if (dense[i] < 0 && rootDense.has(staticRoot[i])) dense[i] = rootDense.get(staticRoot[i])!;
+  for (let i = 0; i < n; i++) if (dense[i] < 0) dense[i] = rootDense[staticRoot[i]];
   const hot = {
     ca: Int32Array.from(hotList, (c) => dense[c.a]),
     cb: Int32Array.from(hotList, (c) => dense[c.b]),
@@ -645,7 +648,7 @@ function denseComponents(
     key: Int32Array.from(hotList, (c) => c.key),
     count: hotList.length,
   };
-  return { dense, denseCount: rootDense.size, hot };
+  return { dense, denseCount, hot };
 }
 
 /**
@@ -654,8 +657,9 @@ function denseComponents(
  */
 export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Netlist {
   const b = newBuilder(options.cached !== false);
-  const ksu = addKsuTerminals(b, plan);
-  wireCrossConnect(b, plan, ksu);
+  const ksuPart = addPart(b, plan.ksu.id, plan.ksu.name, 'ksu', getTemplate('ksu'));
+  wireCached(b, ksuPart, plan.ksu, -1, () => wireCrossConnect(b, plan, ksuTerminals(b, plan, ksuPart)));
+  const ksu = ksuTerminals(b, plan, ksuPart);
   const sets = addSets(b, plan);
   const setById = new Map(sets.map((s) => [s.id, s]));
   const addOnParts = addAddOns(b, plan, setById);
