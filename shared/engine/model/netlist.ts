@@ -484,7 +484,8 @@ interface PartWiring {
  * way equal to what a fresh build makes. Netlists never change after build, so sharing the objects is safe.
  */
 const partWirings = new Map<string, PartWiring>();
-const PART_WIRINGS_MAX = 4000;
+/** Least recently used go first (Map order): enough for a few versions of a large plan, a few MB at most. */
+const PART_WIRINGS_MAX = 512;
 
 const shiftEdge = (e: Edge, dt: number, dc: number): Edge =>
   e.contact === undefined
@@ -518,12 +519,16 @@ function wireCached(b: Builder, p: PartInfo, data: unknown, ownerSet: number, wi
   if (!b.cached) return wire();
   const key = `${p.index}|${ownerSet}|${p.kind}|${JSON.stringify(data)}`;
   const hit = partWirings.get(key);
-  if (hit) return pushWiring(b, p, hit);
+  if (hit) {
+    partWirings.delete(key);
+    partWirings.set(key, hit);
+    return pushWiring(b, p, hit);
+  }
   const at = [b.terminals.length, b.edges.length, b.contactEdges.length, b.contacts.length, b.elements.length];
   wire();
   const terminals = b.terminals.slice(at[0]);
   const pins = b.pinIds[p.index];
-  if (partWirings.size >= PART_WIRINGS_MAX) partWirings.clear();
+  if (partWirings.size >= PART_WIRINGS_MAX) partWirings.delete(partWirings.keys().next().value!);
   partWirings.set(key, {
     termBase: at[0],
     contactBase: at[3],
