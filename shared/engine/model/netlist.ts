@@ -1,6 +1,7 @@
 /**
  * The model layer: a plan turned into terminals, wires, loads (elements) and contacts.
- * Built once per plan object (cached in a WeakMap); lead changes and the KSU cross-connect are applied here.
+ * Built once per plan object (cached in a WeakMap), from part wirings cached by content (an edit rewires only the
+ * part it changed); lead changes and the KSU cross-connect are applied here.
  * Wires never change with the state, so their connectivity is solved once (static components); per state only the
  * closed contacts are unioned over those components (see nets.ts).
  */
@@ -145,10 +146,11 @@ function find(parent: Int32Array, x: number): number {
 
 const cache = new WeakMap<Plan, Netlist>();
 
-export function getNetlist(plan: Plan): Netlist {
+/** The plan's netlist, built on first use (`cached: false`: with no part wiring reused, for tests). */
+export function getNetlist(plan: Plan, options: { cached?: boolean } = {}): Netlist {
   let nl = cache.get(plan);
   if (!nl) {
-    nl = buildNetlist(plan);
+    nl = buildNetlist(plan, options);
     cache.set(plan, nl);
   }
   return nl;
@@ -166,6 +168,8 @@ interface Builder {
   contactEdges: Edge[];
   contacts: ContactInfo[];
   elements: ElementInfo[];
+  /** Reuse part wirings from earlier builds (see wireCached). */
+  cached: boolean;
 }
 
 interface KsuTerminals {
@@ -175,8 +179,9 @@ interface KsuTerminals {
   stations: StationInfo[];
 }
 
-function newBuilder(): Builder {
+function newBuilder(cached: boolean): Builder {
   return {
+    cached,
     parts: [],
     partById: new Map(),
     terminals: [],
@@ -239,9 +244,11 @@ function pinTerm(b: Builder, part: number, port: string, pin: number): number {
   return ids[pin];
 }
 
-/** The KSU's own terminals first: ground, each line circuit's T/R/A/L and each station's buzzer output. */
-function addKsuTerminals(b: Builder, plan: Plan): KsuTerminals {
-  const ksuPart = addPart(b, plan.ksu.id, plan.ksu.name, 'ksu', getTemplate('ksu'));
+/**
+ * The KSU's own terminals first: ground, each line circuit's T/R/A/L and each station's buzzer output (made on
+ * the first call, found on the next).
+ */
+function ksuTerminals(b: Builder, plan: Plan, ksuPart: PartInfo): KsuTerminals {
   const k = ksuPart.index;
   const gnd = term(b, k, 'GND');
   const lines: LineInfo[] = plan.ksu.lines.map((l) => ({
@@ -456,6 +463,86 @@ function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly
   }
 }
 
+/** What one part's wiring added to the builder, made at terminal id `termBase` and contact index `contactBase`. */
+interface PartWiring {
+  termBase: number;
+  contactBase: number;
+  terminals: TerminalInfo[];
+  termNames: string[];
+  pinIds: Map<string, Int32Array> | undefined;
+  edges: Edge[];
+  contactEdges: Edge[];
+  contacts: ContactInfo[];
+  elements: ElementInfo[];
+}
+
+/**
+ * Part wirings by content (the KSU's with its cross-connect too): after an edit in the Bench (one part at a time, a
+ * new plan object) every other part is wired exactly as before. A part's terminals are all made while it is wired, so its wiring depends only on its
+ * own data, its index and the set that owns it (all in the key), up to where its terminal ids and contact indices
+ * start: a hit made at the same ids pushes the same objects again, one made elsewhere pushes them shifted. Either
+ * way equal to what a fresh build makes. Netlists never change after build, so sharing the objects is safe.
+ */
+const partWirings = new Map<string, PartWiring>();
+/** Least recently used go first (Map order): enough for a few versions of a large plan, a few MB at most. */
+const PART_WIRINGS_MAX = 512;
+
+const shiftEdge = (e: Edge, dt: number, dc: number): Edge =>
+  e.contact === undefined
+    ? { ...e, a: e.a + dt, b: e.b + dt }
+    : { ...e, a: e.a + dt, b: e.b + dt, contact: e.contact + dc };
+
+function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
+  const dt = b.terminals.length - w.termBase;
+  const dc = b.contacts.length - w.contactBase;
+  for (const t of w.terminals) b.terminals.push(t);
+  w.termNames.forEach((name, i) => b.terminalIndex.set(name, b.terminals.length - w.terminals.length + i));
+  if (w.pinIds) {
+    const byPort = new Map<string, Int32Array>();
+    for (const [port, ids] of w.pinIds) byPort.set(port, ids.map((id) => (id < 0 ? id : id + dt)));
+    b.pinIds[p.index] = byPort;
+  }
+  if (dt === 0 && dc === 0) {
+    for (const e of w.edges) b.edges.push(e);
+    for (const e of w.contactEdges) b.contactEdges.push(e);
+    for (const c of w.contacts) b.contacts.push(c);
+    for (const e of w.elements) b.elements.push(e);
+    return;
+  }
+  for (const e of w.edges) b.edges.push(shiftEdge(e, dt, dc));
+  for (const e of w.contactEdges) b.contactEdges.push(shiftEdge(e, dt, dc));
+  for (const c of w.contacts) b.contacts.push({ ...c, a: c.a + dt, b: c.b + dt });
+  for (const e of w.elements) b.elements.push({ ...e, a: e.a + dt, b: e.b + dt });
+}
+
+function wireCached(b: Builder, p: PartInfo, data: unknown, ownerSet: number, wire: () => void): void {
+  if (!b.cached) return wire();
+  const key = `${p.index}|${ownerSet}|${p.kind}|${JSON.stringify(data)}`;
+  const hit = partWirings.get(key);
+  if (hit) {
+    partWirings.delete(key);
+    partWirings.set(key, hit);
+    return pushWiring(b, p, hit);
+  }
+  const at = [b.terminals.length, b.edges.length, b.contactEdges.length, b.contacts.length, b.elements.length];
+  wire();
+  const terminals = b.terminals.slice(at[0]);
+  const pins = b.pinIds[p.index];
+  if (partWirings.size >= PART_WIRINGS_MAX) partWirings.delete(partWirings.keys().next().value!);
+  partWirings.set(key, {
+    termBase: at[0],
+    contactBase: at[3],
+    terminals,
+    termNames: terminals.map((t) => `${p.index}|${t.name}`),
+    // as the part left them: cables fill in more pins later, on the builder's copy
+    pinIds: pins && new Map([...pins].map(([port, ids]) => [port, ids.slice()])),
+    edges: b.edges.slice(at[1]),
+    contactEdges: b.contactEdges.slice(at[2]),
+    contacts: b.contacts.slice(at[3]),
+    elements: b.elements.slice(at[4]),
+  });
+}
+
 /** Every part's wiring: sets (then their ringers), add-ons, adapters, in plan order. */
 function wireParts(
   b: Builder,
@@ -467,11 +554,19 @@ function wireParts(
   plan.sets.forEach((s, i) => {
     const info = sets[i];
     const p = b.parts[info.part];
-    wirePart(b, p, s.leadChanges, info.index);
-    addRingers(b, p, info, s.ringerLines);
+    wireCached(b, p, s, info.index, () => {
+      wirePart(b, p, s.leadChanges, info.index);
+      addRingers(b, p, info, s.ringerLines);
+    });
   });
-  plan.addOns.forEach((a, i) => wirePart(b, addOnParts[i], a.leadChanges, addOnParts[i].servesSet));
-  plan.adapters.forEach((a, i) => wirePart(b, adapterParts[i], [], -1, a.bridgedPairs));
+  plan.addOns.forEach((a, i) => {
+    const p = addOnParts[i];
+    wireCached(b, p, a, p.servesSet, () => wirePart(b, p, a.leadChanges, p.servesSet));
+  });
+  plan.adapters.forEach((a, i) => {
+    const p = adapterParts[i];
+    wireCached(b, p, a, -1, () => wirePart(b, p, [], -1, a.bridgedPairs));
+  });
 }
 
 function portExists(plan: Plan, part: PartInfo, port: string): boolean {
@@ -526,29 +621,30 @@ function denseComponents(
 ): Pick<Netlist, 'dense' | 'denseCount' | 'hot'> {
   const n = b.terminals.length;
   const dense = new Int32Array(n).fill(-1);
-  const rootDense = new Map<number, number>();
+  // static root → dense id (-1: none yet); roots are terminal ids
+  const rootDense = new Int32Array(n).fill(-1);
+  let denseCount = 0;
   const mark = (t: number): number => {
     const r = staticRoot[t];
-    let d = rootDense.get(r);
-    if (d === undefined) {
-      d = rootDense.size;
-      rootDense.set(r, d);
-    }
+    let d = rootDense[r];
+    if (d < 0) d = rootDense[r] = denseCount++;
     dense[t] = d;
     return d;
   };
   mark(ksu.gnd);
   for (const l of ksu.lines) [l.t, l.r, l.a, l.l].forEach(mark);
   for (const s of ksu.stations) [s.t, s.r].forEach(mark);
-  for (const e of b.elements) [e.a, e.b].forEach(mark);
+  for (const e of b.elements) {
+    mark(e.a);
+    mark(e.b);
+  }
   const hotList: ContactInfo[] = [];
   for (const c of b.contacts) {
     const da = mark(c.a);
     const db = mark(c.b);
     if (da !== db && c.mech >= 0) hotList.push(c);
   }
-  for (let i = 0; i < n; i++)
-    if (dense[i] < 0 && rootDense.has(staticRoot[i])) dense[i] = rootDense.get(staticRoot[i])!;
+  for (let i = 0; i < n; i++) if (dense[i] < 0) dense[i] = rootDense[staticRoot[i]];
   const hot = {
     ca: Int32Array.from(hotList, (c) => dense[c.a]),
     cb: Int32Array.from(hotList, (c) => dense[c.b]),
@@ -557,14 +653,18 @@ function denseComponents(
     key: Int32Array.from(hotList, (c) => c.key),
     count: hotList.length,
   };
-  return { dense, denseCount: rootDense.size, hot };
+  return { dense, denseCount, hot };
 }
 
-/** The phases in the order terminals and edges are made (ids and edge order follow it, and so do paths). */
-export function buildNetlist(plan: Plan): Netlist {
-  const b = newBuilder();
-  const ksu = addKsuTerminals(b, plan);
-  wireCrossConnect(b, plan, ksu);
+/**
+ * The phases in the order terminals and edges are made (ids and edge order follow it, and so do paths). With
+ * `cached: false` every part is wired afresh (tests compare the two).
+ */
+export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Netlist {
+  const b = newBuilder(options.cached !== false);
+  const ksuPart = addPart(b, plan.ksu.id, plan.ksu.name, 'ksu', getTemplate('ksu'));
+  wireCached(b, ksuPart, plan.ksu, -1, () => wireCrossConnect(b, plan, ksuTerminals(b, plan, ksuPart)));
+  const ksu = ksuTerminals(b, plan, ksuPart);
   const sets = addSets(b, plan);
   const setById = new Map(sets.map((s) => [s.id, s]));
   const addOnParts = addAddOns(b, plan, setById);

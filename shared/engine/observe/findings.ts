@@ -118,21 +118,21 @@ export function stateFindings(f: FindingFacts, rules: readonly StateRule[] = STA
   return out;
 }
 
-const wiringCache = new WeakMap<Netlist, { plain: Finding[]; withPaths?: Finding[] }>();
+const wiringCache = new WeakMap<Netlist, { plain?: Finding[]; withPaths?: Finding[] }>();
 
 /**
- * The wiring rules' findings, made once per netlist (with and without paths): the same objects in every state,
- * which the sweep relies on to key them once.
+ * The wiring rules' findings, made once per netlist with and once without paths, each when first asked for (an
+ * evaluation with paths after an edit needs only those): the same objects in every state, which the sweep relies
+ * on to key them once.
  */
 export function wiringFindings(nl: Netlist, withPaths: boolean): Finding[] {
   let entry = wiringCache.get(nl);
   if (!entry) {
-    entry = { plain: WIRING_RULES.flatMap((r) => r.find(nl, false)) };
+    entry = {};
     wiringCache.set(nl, entry);
   }
-  if (!withPaths) return entry.plain;
-  entry.withPaths ??= WIRING_RULES.flatMap((r) => r.find(nl, true));
-  return entry.withPaths;
+  if (!withPaths) return (entry.plain ??= WIRING_RULES.flatMap((r) => r.find(nl, false)));
+  return (entry.withPaths ??= WIRING_RULES.flatMap((r) => r.find(nl, true)));
 }
 
 /** Every finding of one state: state rules, then wiring rules. */

@@ -84,6 +84,16 @@ function takeScratch(nl: Netlist): Scratch {
   };
 }
 
+/** Scratch handed back cleared (prev and prevEdge all -1), for the next finder or path on the netlist. */
+function giveBack(nl: Netlist, sc: Scratch): void {
+  let pool = scratchPool.get(nl);
+  if (!pool) {
+    pool = [];
+    scratchPool.set(nl, pool);
+  }
+  pool.push(sc);
+}
+
 export interface TerminalPath {
   terms: number[];
   /** edges[i] joins terms[i] and terms[i + 1]. */
@@ -93,9 +103,9 @@ export interface TerminalPath {
 /** Shortest conductor path between two terminals; mech null = wires only (no contacts). */
 export function findPath(nl: Netlist, from: number, to: number, mech: Mech | null): TerminalPath | null {
   const adj = adjacency(nl);
-  const n = nl.terminals.length;
-  const prev = new Int32Array(n).fill(-1);
-  const prevEdge = new Int32Array(n).fill(-1);
+  // pooled scratch (cleared again below): a netlist's wiring findings trace many of these
+  const sc = takeScratch(nl);
+  const { prev, prevEdge } = sc;
   prev[from] = from;
   const queue = [from];
   for (let q = 0; q < queue.length; q++) {
@@ -111,14 +121,19 @@ export function findPath(nl: Netlist, from: number, to: number, mech: Mech | nul
       queue.push(next);
     }
   }
-  if (prev[to] === -1) return null;
-  const terms = [to];
-  const edges: number[] = [];
-  for (let t = to; t !== from; t = prev[t]) {
-    edges.push(prevEdge[t]);
-    terms.push(prev[t]);
+  let found: TerminalPath | null = null;
+  if (prev[to] !== -1) {
+    const terms = [to];
+    const edges: number[] = [];
+    for (let t = to; t !== from; t = prev[t]) {
+      edges.push(prevEdge[t]);
+      terms.push(prev[t]);
+    }
+    found = { terms: terms.reverse(), edges: edges.reverse() };
   }
-  return { terms: terms.reverse(), edges: edges.reverse() };
+  for (let i = 0; i < queue.length; i++) prev[queue[i]] = prevEdge[queue[i]] = -1;
+  giveBack(nl, sc);
+  return found;
 }
 
 /**
@@ -171,12 +186,7 @@ export class PathFinder {
       }
     }
     this.trees.clear();
-    let pool = scratchPool.get(this.nl);
-    if (!pool) {
-      pool = [];
-      scratchPool.set(this.nl, pool);
-    }
-    pool.push(sc);
+    giveBack(this.nl, sc);
   }
 
   /**
