@@ -6,3 +6,4 @@ export * from './password-strength';
 export * from './plan-revisions.schema';
 export * from './plan-shares.schema';
 export * from './plan-photos.schema';
+export * from './work-record.schema';
