@@ -24,9 +24,9 @@ const toEntry = (row: EntryRow): WorkEntry => ({
 export function workRecordRepo(db: Database) {
   return {
     async asFound(planId: string): Promise<{ parts: AsFoundPart[]; recordedAt: string } | null> {
-      const row = await db('plan_work_records').where({ plan_id: planId }).first<
-        { as_found: string; recorded_at: string } | undefined
-      >();
+      const row = await db('plan_work_records')
+        .where({ plan_id: planId })
+        .first<{ as_found: string; recorded_at: string } | undefined>();
       return row ? { parts: JSON.parse(row.as_found) as AsFoundPart[], recordedAt: row.recorded_at } : null;
     },
 
@@ -57,7 +57,9 @@ export function workRecordRepo(db: Database) {
     ): Promise<WorkEntry> {
       const now = new Date().toISOString();
       return db.transaction(async (trx) => {
-        const old = await trx<EntryRow>('plan_work_entries').where({ plan_id: planId, entry_key: key }).first();
+        const old = await trx<EntryRow>('plan_work_entries')
+          .where({ plan_id: planId, entry_key: key })
+          .first();
         const row: EntryRow = {
           plan_id: planId,
           entry_key: key,

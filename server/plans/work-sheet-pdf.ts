@@ -37,7 +37,12 @@ function tickLine(doc: Doc, entry: WorkEntry | undefined) {
   doc.font('Helvetica');
 }
 
-function asFoundSection(doc: Doc, parts: AsFoundPart[], recordedAt: string | null, notes: Map<string, WorkEntry>) {
+function asFoundSection(
+  doc: Doc,
+  parts: AsFoundPart[],
+  recordedAt: string | null,
+  notes: Map<string, WorkEntry>,
+) {
   heading(doc, 'As found, before any lead change');
   doc.text(
     recordedAt
@@ -105,7 +110,10 @@ export function workSheetPdf(input: WorkSheetPdfInput): Promise<Buffer> {
   });
 
   doc.font('Helvetica-Bold').fontSize(18).text(`Work sheet: ${plan.name}`);
-  doc.font('Helvetica').fontSize(10).text(`${sheet.setCount} sets, ${sheet.addOnCount} add-ons, ${sheet.stepCount} steps`);
+  doc
+    .font('Helvetica')
+    .fontSize(10)
+    .text(`${sheet.setCount} sets, ${sheet.addOnCount} add-ons, ${sheet.stepCount} steps`);
   doc.moveDown(0.6).font('Helvetica-Bold').text(SAFETY_TITLE).font('Helvetica').text(SAFETY_COMPACT);
   asFoundSection(doc, input.asFound, input.recordedAt, entries);
   stepsSection(doc, sheet, entries);
@@ -119,11 +127,16 @@ export function workSheetPdf(input: WorkSheetPdfInput): Promise<Buffer> {
     doc.page.margins.bottom = 0;
     doc
       .fontSize(8)
-      .text(`${plan.name} · page ${i + 1 - range.start} of ${range.count}`, MARGIN, doc.page.height - MARGIN + 16, {
-        width: doc.page.width - 2 * MARGIN,
-        align: 'center',
-        lineBreak: false,
-      });
+      .text(
+        `${plan.name} · page ${i + 1 - range.start} of ${range.count}`,
+        MARGIN,
+        doc.page.height - MARGIN + 16,
+        {
+          width: doc.page.width - 2 * MARGIN,
+          align: 'center',
+          lineBreak: false,
+        },
+      );
     doc.page.margins.bottom = bottom;
   }
   doc.end();

@@ -10,7 +10,8 @@ export const SAFETY_COMPACT =
   "can shock. Disconnect lines before you work, never work during a lightning storm, follow local codes, the carrier's " +
   'rules and licensed practice, and connect only approved equipment to the public network.';
 
-export const SAFETY_INTRO = 'Leadbench models circuits on screen only. The wiring it helps you plan is not harmless:';
+export const SAFETY_INTRO =
+  'Leadbench models circuits on screen only. The wiring it helps you plan is not harmless:';
 
 /** The full form's points; `strong` marks the figures the page prints in bold. */
 export const SAFETY_POINTS: readonly { text: string; strong?: readonly string[] }[] = [

@@ -218,7 +218,10 @@ function crossConnectRows(
     const was = words(standardEntries, key);
     const now = words(own, key);
     if (was.join('|') === now.join('|')) continue;
-    const putBack = [...own.filter((x) => slot(x) !== key), ...standardEntries.filter((x) => slot(x) === key)];
+    const putBack = [
+      ...own.filter((x) => slot(x) !== key),
+      ...standardEntries.filter((x) => slot(x) === key),
+    ];
     const after = troubles({ ...plan, ksu: { ...plan.ksu, crossConnect: putBack } });
     const where = { port, pair, colour: pairColour(pair), standard: was, planned: now };
     if (after === base) {

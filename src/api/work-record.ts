@@ -1,9 +1,5 @@
 /** The work record of a plan (leads as found, tick-offs, notes) and the address of its PDF work sheet. */
-import {
-  WorkEntrySchema,
-  WorkRecordSchema,
-  type WorkEntryUpdate,
-} from '@shared/schemas/work-record.schema';
+import { WorkEntrySchema, WorkRecordSchema, type WorkEntryUpdate } from '@shared/schemas/work-record.schema';
 import { request } from './client';
 
 const base = (planId: string) => `/api/plans/${encodeURIComponent(planId)}`;

@@ -8,7 +8,14 @@ import type { Page } from 'playwright-core';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import demoPlan from '../../shared/engine/examples/demo-plan.json';
-import { collectPageErrors, newAccount, openBrowser, signUp, waitForPath, type BrowserSession } from '../support/browser';
+import {
+  collectPageErrors,
+  newAccount,
+  openBrowser,
+  signUp,
+  waitForPath,
+  type BrowserSession,
+} from '../support/browser';
 
 const baseUrl = inject('baseUrl');
 const chromiumPath = inject('chromiumPath');
@@ -52,7 +59,9 @@ describe.skipIf(!chromiumPath)('the work record and photos', () => {
     const png = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#9b4a2c' } })
       .png()
       .toBuffer();
-    await gallery.getByTestId('photo-file').setInputFiles({ name: 'cord-entry.png', mimeType: 'image/png', buffer: png });
+    await gallery
+      .getByTestId('photo-file')
+      .setInputFiles({ name: 'cord-entry.png', mimeType: 'image/png', buffer: png });
     await expect.poll(() => photoItems().count(), { timeout: 10_000 }).toBe(1);
     const thumb = gallery.getByTestId('photo-thumb').first();
     // The thumbnail really loaded: the browser decoded a picture with a width.
@@ -97,7 +106,10 @@ describe.skipIf(!chromiumPath)('the work record and photos', () => {
   });
 
   it('downloads the work sheet as a PDF', async () => {
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('sheet-pdf').click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByTestId('sheet-pdf').click(),
+    ]);
     const file = readFileSync((await download.path())!);
     expect(file.subarray(0, 5).toString('latin1')).toBe('%PDF-'); // PDF 1.7 (ISO 32000-1) §7.5.2 file header
     const answer = await page.request.get(`${baseUrl}/api/plans/${planId}/work-sheet.pdf`);

@@ -50,13 +50,26 @@ const emptyRecord = () => ({
       name: 'Desk A',
       templateTitle: 'Six-key set',
       // Pair 18 is yellow-green; tip on pin 43, ring on pin 18 (ICEA S-80-576, USOC RJ21X).
-      leads: [{ pair: 18, colour: 'yellow-green', tip: 'BZ', ring: 'BR', pins: { tip: 43, ring: 18 }, purpose: 'Buzzer' }],
+      leads: [
+        {
+          pair: 18,
+          colour: 'yellow-green',
+          tip: 'BZ',
+          ring: 'BR',
+          pins: { tip: 43, ring: 18 },
+          purpose: 'Buzzer',
+        },
+      ],
     },
   ],
   entries: [],
 });
 
-async function mountPage(answers: Record<string, Answer>, access: 'owner' | 'viewer' = 'owner', waitFor = 'sheet-plan-name') {
+async function mountPage(
+  answers: Record<string, Answer>,
+  access: 'owner' | 'viewer' = 'owner',
+  waitFor = 'sheet-plan-name',
+) {
   const plan = withLift(twoSetPlan());
   const routes: Record<string, Answer> = {
     'GET /api/plans/p1': () => Response.json({ ...record(plan), access }),
@@ -65,7 +78,9 @@ async function mountPage(answers: Record<string, Answer>, access: 'owner' | 'vie
   };
   const fetchMock = vi.fn(async (url: string, init: RequestInit = {}) => {
     const answer = routes[`${init.method ?? 'GET'} ${url}`];
-    return answer ? answer(init) : Response.json({ error: { code: 'INTERNAL', message: 'unexpected' } }, { status: 500 });
+    return answer
+      ? answer(init)
+      : Response.json({ error: { code: 'INTERNAL', message: 'unexpected' } }, { status: 500 });
   });
   vi.stubGlobal('fetch', fetchMock);
   const pinia = createPinia();
@@ -97,7 +112,9 @@ afterEach(() => {
 });
 
 const calls = (fetchMock: ReturnType<typeof vi.fn>, what: string) =>
-  fetchMock.mock.calls.filter(([url, init]) => `${(init as RequestInit | undefined)?.method ?? 'GET'} ${url}` === what).length;
+  fetchMock.mock.calls.filter(
+    ([url, init]) => `${(init as RequestInit | undefined)?.method ?? 'GET'} ${url}` === what,
+  ).length;
 
 describe('work sheet page', () => {
   it('loads the plan and its work record once each, shows the sheet and the parts as found', async () => {

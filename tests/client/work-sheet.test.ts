@@ -132,7 +132,9 @@ describe('WorkSheetView', () => {
     // Back room moves its buzzer pair 18 to spare pair 17, so station 32's buzzer output must land there too.
     const rows = crossRows(withBuzzer('st-back', { port: 1, pair: 17 }));
     expect(rows).toHaveLength(1);
-    expect(rows[0]).toContain('Connect the buzzer output of intercom station 32 to port 1, pair 17 (yellow-orange).');
+    expect(rows[0]).toContain(
+      'Connect the buzzer output of intercom station 32 to port 1, pair 17 (yellow-orange).',
+    );
     // Pins of pair 17 on the port's connector: tip 42, ring 17 (RJ21X).
     expect(rows[0]).toContain('pins 42 (T), 17 (R)');
   });
@@ -140,8 +142,12 @@ describe('WorkSheetView', () => {
   it('puts back a cross-connect entry that is itself the fault, never telling to wire the fault', () => {
     // Station 31's buzzer on pair 17 reaches Back room (moved there) instead of Front desk: wired wrong.
     const rows = crossRows(withBuzzer('st-front', { port: 1, pair: 17 }));
-    expect(rows.join('\n')).not.toContain('Connect the buzzer output of intercom station 31 to port 1, pair 17');
-    expect(rows.join('\n')).toContain('Take the buzzer output of intercom station 31 off port 1, pair 17 (yellow-orange).');
+    expect(rows.join('\n')).not.toContain(
+      'Connect the buzzer output of intercom station 31 to port 1, pair 17',
+    );
+    expect(rows.join('\n')).toContain(
+      'Take the buzzer output of intercom station 31 off port 1, pair 17 (yellow-orange).',
+    );
   });
 
   it('on the demo plan lists no step that would make its fault, and names parts, not ids', () => {

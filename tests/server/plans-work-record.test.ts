@@ -32,8 +32,10 @@ afterAll(async () => {
   await server.close();
 });
 
-const record = async () => WorkRecordSchema.parse((await owner.get(`/api/plans/${plan.id}/work-record`)).body);
-const tick = (key: string, body: object) => owner.put(`/api/plans/${plan.id}/work-record/entries/${key}`).send(body);
+const record = async () =>
+  WorkRecordSchema.parse((await owner.get(`/api/plans/${plan.id}/work-record`)).body);
+const tick = (key: string, body: object) =>
+  owner.put(`/api/plans/${plan.id}/work-record/entries/${key}`).send(body);
 
 describe('work record', () => {
   it('shows every set as wired, with the lifted pair still in place, before anything is recorded', async () => {
@@ -80,7 +82,9 @@ describe('work record', () => {
     const doc = liftedPlan();
     doc.sets[1]!.leadChanges = [{ kind: 'lift', pair: 18, conductor: 'both' }];
     doc.sets.push({ ...doc.sets[1]!, id: 'set-3', name: 'Desk 3', leadChanges: [] });
-    const saved = await owner.put(`/api/plans/${plan.id}`).send({ document: doc, baseUpdatedAt: plan.updatedAt });
+    const saved = await owner
+      .put(`/api/plans/${plan.id}`)
+      .send({ document: doc, baseUpdatedAt: plan.updatedAt });
     expect(saved.status).toBe(200);
     const after = await record();
     expect(after.asFound.map((p) => p.partId)).toEqual(['set-1', 'set-2']);
@@ -93,11 +97,14 @@ describe('work record', () => {
 
 describe('PDF work sheet', () => {
   it('answers a PDF with one page object per page', async () => {
-    const res = await owner.get(`/api/plans/${plan.id}/work-sheet.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await owner
+      .get(`/api/plans/${plan.id}/work-sheet.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const pdf = res.body as Buffer;
@@ -109,10 +116,23 @@ describe('PDF work sheet', () => {
     const doc = planWithSets(12, 'Long sheet');
     for (const s of doc.sets) s.leadChanges = [{ kind: 'lift', pair: 18, conductor: 'both' }];
     const entries = [
-      { key: 'step:set-1:1', done: true, doneAt: '2026-03-14T09:30:00.000Z', initials: 'AB', note: 'Buzzer lead green, not yellow', updatedAt: '2026-03-14T09:30:00.000Z' },
+      {
+        key: 'step:set-1:1',
+        done: true,
+        doneAt: '2026-03-14T09:30:00.000Z',
+        initials: 'AB',
+        note: 'Buzzer lead green, not yellow',
+        updatedAt: '2026-03-14T09:30:00.000Z',
+      },
     ];
     const { asFound } = await import('../../shared/work-sheet/as-found');
-    const pdf = await workSheetPdf({ plan: doc, asFound: asFound(doc), recordedAt: null, entries, compress: false });
+    const pdf = await workSheetPdf({
+      plan: doc,
+      asFound: asFound(doc),
+      recordedAt: null,
+      entries,
+      compress: false,
+    });
     const pages = pdfText(pdf);
     // 12 six-key sets list 16 lead pairs each: more than one A4 page, so the footer is checked on several.
     expect(pages.length).toBeGreaterThan(1);
