@@ -20,6 +20,7 @@ export interface WorkSheetPdfInput {
 
 const MARGIN = 50;
 const day = (iso: string) => iso.slice(0, 10);
+const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 
 type Doc = InstanceType<typeof PDFDocument>;
 
@@ -113,7 +114,9 @@ export function workSheetPdf(input: WorkSheetPdfInput): Promise<Buffer> {
   doc
     .font('Helvetica')
     .fontSize(10)
-    .text(`${sheet.setCount} sets, ${sheet.addOnCount} add-ons, ${sheet.stepCount} steps`);
+    .text(
+      `${count(sheet.setCount, 'set')}, ${count(sheet.addOnCount, 'add-on')}, ${count(sheet.stepCount, 'step')}`,
+    );
   doc.moveDown(0.6).font('Helvetica-Bold').text(SAFETY_TITLE).font('Helvetica').text(SAFETY_COMPACT);
   asFoundSection(doc, input.asFound, input.recordedAt, entries);
   stepsSection(doc, sheet, entries);

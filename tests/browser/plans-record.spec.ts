@@ -12,6 +12,7 @@ import {
   collectPageErrors,
   newAccount,
   openBrowser,
+  screenshot,
   signUp,
   waitForPath,
   type BrowserSession,
@@ -64,6 +65,7 @@ describe.skipIf(!chromiumPath)('the work record and photos', () => {
       .setInputFiles({ name: 'cord-entry.png', mimeType: 'image/png', buffer: png });
     await expect.poll(() => photoItems().count(), { timeout: 10_000 }).toBe(1);
     const thumb = gallery.getByTestId('photo-thumb').first();
+    await screenshot(page, 'plans-record-photo');
     // The thumbnail really loaded: the browser decoded a picture with a width.
     await expect
       .poll(() => thumb.evaluate((img) => (img as HTMLImageElement).naturalWidth), { timeout: 10_000 })
@@ -94,10 +96,12 @@ describe.skipIf(!chromiumPath)('the work record and photos', () => {
     expect(await page.getByTestId('sheet-as-found-status').innerText()).toContain('Not recorded yet');
 
     await page.getByTestId('initials-step:workroom:1').fill('JMK');
-    await page.getByTestId('tick-step:workroom:1').check();
+    // The box shows what the server kept, so it turns on once the tick is saved (a plain click, not check()).
+    await page.getByTestId('tick-step:workroom:1').click();
     await page.getByTestId('done-at-step:workroom:1').waitFor();
     await expect.poll(() => page.getByTestId('sheet-as-found-status').innerText()).toContain('Recorded');
 
+    await screenshot(page, 'plans-record-sheet-ticked');
     await page.reload();
     await page.getByTestId('sheet-as-found').waitFor();
     await page.getByTestId('done-at-step:workroom:1').waitFor();
