@@ -1,4 +1,4 @@
-/** The plans library's routes in one place: plans, their revisions, files, shares and photos, and share links. */
+/** The plans library's routes in one place: plans, their revisions, files, shares, photos and work record, and share links. */
 import { Router } from 'express';
 import type { Logger } from 'pino';
 import type { Database } from '../db/database';
@@ -11,6 +11,8 @@ import { linkRoutes, planSharesRoutes } from './shares.routes';
 import { plansRepo } from './plans.repo';
 import { plansRoutes } from './plans.routes';
 import { plansService, type PlanLimits } from './plans.service';
+import { workRecordRepo } from './work-record.repo';
+import { workRecordRoutes } from './work-record.routes';
 
 export interface PlansLibraryDeps {
   db: Database;
@@ -34,6 +36,7 @@ export function plansLibraryRoutes({ db, config, mailer, logger }: PlansLibraryD
     planSharesRoutes({ service, shares, mailer, logger, publicOrigin: config.publicOrigin }),
   );
   router.use('/plans/:id/photos', photosRoutes(service, photos, store, config.photos.maxBytes));
+  router.use('/plans/:id', workRecordRoutes(service, workRecordRepo(db)));
   router.use('/plans', plansRoutes(service, plans, config.plans.importMaxBytes, config.plans.maxSets));
   router.use('/links', linkRoutes({ service, shares }));
   return router;

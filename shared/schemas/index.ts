@@ -5,3 +5,4 @@ export * from './plans.schema';
 export * from './plan-revisions.schema';
 export * from './plan-shares.schema';
 export * from './plan-photos.schema';
+export * from './work-record.schema';

@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { mount } from '@vue/test-utils';
-import { PlanSchema, standardCrossConnect, type LeadChange, type Plan } from '@shared/engine';
+import { checkRequired, PlanSchema, standardCrossConnect, type LeadChange, type Plan } from '@shared/engine';
+import { requiredFailureWords } from '@shared/work-sheet/words';
+import { buildWorkSheet } from '@/work-sheet/work-sheet';
+import demoPlan from '../../shared/engine/examples/demo-plan.json';
 import WorkSheetView from '@/components/work-sheet/WorkSheetView.vue';
 
 /** An invented shop: two hands-free-ready six-key sets on one bridging adapter, a speaker on the front desk. */
@@ -107,31 +110,56 @@ describe('WorkSheetView', () => {
 
     // Pairs 23–25 are the private hands-free leads of the wired-for-hands-free set (templates/README.md).
     expect(costs[0]).toBe('Front desk loses its hands-free connection.');
-    expect(costs[1]).toBe('None today: Back room has no hands-free add-on (it can no longer take one).');
+    // Nothing is lost today, but the set could not take an add-on later: said apart, never "none" and a loss at once.
+    expect(costs[1]).toBe(
+      'Nothing stops working today (Back room has no hands-free add-on), but Back room could not take one later without putting the leads back.',
+    );
     expect(costs[3]).toContain('None once the KSU feeds pair 17');
   });
 
-  it('shows the cross-connect entries that differ from the standard station plan', () => {
-    const standard = standardCrossConnect(plan.ksu);
-    const crossConnect = standard.map((x) =>
-      x.port === 1 && x.pair === 18 && x.lead.kind === 'buzzer' ? { ...x, pair: 17 } : x,
+  const withBuzzer = (station: string, to: { port: number; pair: number }): Plan => {
+    const crossConnect = standardCrossConnect(plan.ksu).map((x) =>
+      x.lead.kind === 'buzzer' && x.lead.station === station ? { ...x, ...to } : x,
     );
-    const moved = { ...plan, ksu: { ...plan.ksu, crossConnect } };
+    return { ...plan, ksu: { ...plan.ksu, crossConnect } };
+  };
+  const crossRows = (p: Plan) =>
+    mountSheet(p)
+      .findAll('table[aria-label="KSU cross-connect changes"] tbody tr')
+      .map((r) => r.text());
 
-    const wrapper = mountSheet(moved);
-    const table = wrapper.get('table[aria-label="KSU cross-connect changes"]');
-    const rows = table.findAll('tbody tr').map((r) => r.text());
-
-    // One entry moved from pair 18 to pair 17 of port 1: the old pair loses it, the new one gets it.
-    expect(rows).toHaveLength(2);
+  it('makes the cross-connect change a cure needs: the back room buzzer follows its set to pair 17', () => {
+    // Back room moves its buzzer pair 18 to spare pair 17, so station 32's buzzer output must land there too.
+    const rows = crossRows(withBuzzer('st-back', { port: 1, pair: 17 }));
+    expect(rows).toHaveLength(1);
     expect(rows[0]).toContain(
-      'Connect the buzzer output of intercom station 31 to port 1, pair 17 (yellow-orange).',
+      'Connect the buzzer output of intercom station 32 to port 1, pair 17 (yellow-orange).',
     );
     // Pins of pair 17 on the port's connector: tip 42, ring 17 (RJ21X).
     expect(rows[0]).toContain('pins 42 (T), 17 (R)');
-    expect(rows[1]).toContain(
-      'Take the buzzer output of intercom station 31 off port 1, pair 18 (yellow-green).',
+  });
+
+  it('puts back a cross-connect entry that is itself the fault, never telling to wire the fault', () => {
+    // Station 31's buzzer on pair 17 reaches Back room (moved there) instead of Front desk: wired wrong.
+    const rows = crossRows(withBuzzer('st-front', { port: 1, pair: 17 }));
+    expect(rows.join('\n')).not.toContain(
+      'Connect the buzzer output of intercom station 31 to port 1, pair 17',
     );
+    expect(rows.join('\n')).toContain(
+      'Take the buzzer output of intercom station 31 off port 1, pair 17 (yellow-orange).',
+    );
+  });
+
+  it('on the demo plan lists no step that would make its fault, and names parts, not ids', () => {
+    const demo = PlanSchema.parse(demoPlan);
+    const sheet = buildWorkSheet(demo);
+    // Both sets bridge on port 1, so station 22's extra buzzer feed on pair 18 changes which set is wrong,
+    // not whether one is: no step, only a note to leave it as wired.
+    expect(sheet.crossConnect).toEqual([]);
+    expect(sheet.crossConnectKept.map((k) => `${k.port}/${k.pair}`)).toEqual(['1/18']);
+    const words = checkRequired(demo).map((f) => requiredFailureWords(demo, f));
+    expect(words).toContain('A call to station 22 (Workroom) also buzzes Front counter');
+    expect(words.join(' ')).not.toMatch(/front-counter|workroom\b/);
   });
 
   it('lists what to test by hand: every set on its lines, and each intercom station', () => {
@@ -148,7 +176,7 @@ describe('WorkSheetView', () => {
     const wrapper = mountSheet(shopPlan());
 
     expect(wrapper.get('[data-testid="sheet-empty"]').text()).toContain(
-      'No lead changes in this plan yet — find a remedy on the Bench.',
+      'No lead changes in this plan yet — find a cure on the Bench.',
     );
     expect(wrapper.findAll('table')).toHaveLength(0);
     expect(wrapper.get('[data-testid="sheet-steps-total"]').text()).toBe('0');

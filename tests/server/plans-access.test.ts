@@ -1,7 +1,7 @@
 /**
  * Who may do what with a plan, route by route, for every kind of caller. Our own access design
  * (server/plans/plans.service.ts): the owner does everything; a person it is shared with (by e-mail or link) may
- * read, export, copy and see photos; everyone else signed in gets 404 as if the plan did not exist (admins too:
+ * read, export, copy, see photos and read the work record and its PDF; everyone else signed in gets 404 as if the plan did not exist (admins too:
  * plan contents are private); nobody signed out gets past 401. An instructor sees a trainee's plan once shared.
  */
 import request from 'supertest';
@@ -72,6 +72,14 @@ const routes: Route[] = [
   { name: 'GET photo image', kind: 'read', send: (a) => a.get(`${p()}/photos/${photoId}/image`) },
   { name: 'GET photo thumb', kind: 'read', send: (a) => a.get(`${p()}/photos/${photoId}/thumb`) },
   { name: 'POST duplicate', kind: 'read', send: (a) => a.post(`${p()}/duplicate`).send({}) },
+  { name: 'GET work record', kind: 'read', send: (a) => a.get(`${p()}/work-record`) },
+  { name: 'GET work sheet PDF', kind: 'read', send: (a) => a.get(`${p()}/work-sheet.pdf`) },
+  { name: 'POST work record as found', kind: 'write', send: (a) => a.post(`${p()}/work-record/as-found`) },
+  {
+    name: 'PUT work record entry',
+    kind: 'write',
+    send: (a) => a.put(`${p()}/work-record/entries/step:set-1:1`).send({ done: true, initials: 'RB' }),
+  },
   {
     name: 'PUT plan',
     kind: 'write',

@@ -1,7 +1,14 @@
 /** The Cure panel's results in plain words: what each choice costs, the proof of minimality, why no cure exists. */
 import type { CureChoiceCost, OptimalCureResult } from '@shared/engine';
+import { costWords } from '@shared/work-sheet/cost-words';
 
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
+/**
+ * One proposed change's cost line, in the same words as the work sheet: a change that costs nothing today but
+ * rules out a hands-free add-on later says both, not "none" and a loss in one breath.
+ */
+export const changeCost = (cost: string): string => `Cost: ${costWords(cost)}`;
 
 /** "Keeping the add-on of Front counter costs 1 more change (4 instead of 3)." */
 export function choiceCost(choice: CureChoiceCost, setName: string): string {
