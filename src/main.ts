@@ -1,5 +1,4 @@
 import { createApp } from 'vue';
-import { VueQueryPlugin } from '@tanstack/vue-query';
 import App from './App.vue';
 import './plugins/fonts';
 import './styles/base.css';
@@ -8,6 +7,5 @@ import { createBrowserRouter } from './plugins/router';
 
 const app = createApp(App);
 app.use(pinia);
-app.use(VueQueryPlugin);
-app.use(createBrowserRouter(pinia));
+app.use(createBrowserRouter(app, pinia));
 app.mount('#app');

@@ -1,24 +1,28 @@
+import type { App } from 'vue';
 import type { Pinia } from 'pinia';
 import { createWebHistory } from 'vue-router';
 import { createAppRouter } from '@/router';
 import { lazyLoadingBar } from './naive-ui';
 
-export function createBrowserRouter(pinia: Pinia) {
+export function createBrowserRouter(app: App, pinia: Pinia) {
   const loadingBar = lazyLoadingBar(pinia);
   const router = createAppRouter(createWebHistory(import.meta.env.BASE_URL), pinia, loadingBar);
 
   // A session that ends while a page is open (expiry, password changed elsewhere): back to sign-in,
   // then return to the same page. The Bench is left alone: it holds unsaved edits and reports the
   // failed save itself, so leaving it here could lose work. Registered on the first page that is not light
-  // (the landing does without the API client), before any of its requests.
+  // (the landing does without the API client), before any of its requests. The data-loading kit is installed
+  // there too: only those pages load data, and the landing need not fetch it.
   let watching = false;
   router.beforeEach(async (to) => {
     if (watching || to.meta.light) return;
     watching = true;
-    const [{ setUnauthenticatedHandler }, { useSessionStore }] = await Promise.all([
+    const [{ setUnauthenticatedHandler }, { useSessionStore }, { VueQueryPlugin }] = await Promise.all([
       import('@/api/client'),
       import('@/stores/session.store'),
+      import('@tanstack/vue-query'),
     ]);
+    app.use(VueQueryPlugin);
     setUnauthenticatedHandler(() => {
       const session = useSessionStore(pinia);
       const current = router.currentRoute.value;
