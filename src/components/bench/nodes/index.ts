@@ -64,7 +64,15 @@ function placed(pos: { x: number; y: number } | undefined, index: number, column
   return pos ?? { x: DEFAULT_X + column * 320, y: DEFAULT_Y + index * 260 };
 }
 
+/**
+ * The part frame inside each node is the drawing's roving tab stop (canvas-view.ts), so vue-flow's own
+ * wrapper stays out of the tab order.
+ */
 export function planToNodes(plan: Plan): BenchFlowNode[] {
+  return partNodes(plan).map((n) => ({ ...n, focusable: false }));
+}
+
+function partNodes(plan: Plan): BenchFlowNode[] {
   const nodes: BenchFlowNode[] = [
     {
       id: plan.ksu.id,
