@@ -130,6 +130,9 @@ describe.skipIf(!chromiumPath)('the Bench layouts, keyboard path and legibility'
         expect(await onScreen(page, testid), testid).toBe(true);
       await page.getByTestId('show-panels').click();
       await page.getByTestId('panel-tab-findings').waitFor();
+      // The drawer slides in; measure once it has arrived.
+      await page.waitForFunction(() => document.getAnimations().every((a) => a.playState !== 'running'));
+      await page.waitForTimeout(400);
       for (const tab of ['findings', 'card', 'handset', 'sweep', 'cure'])
         expect(await onScreen(page, `panel-tab-${tab}`), tab).toBe(true);
       await screenshot(page, `layout-tablet-${viewport.width}x${viewport.height}`);
@@ -152,12 +155,11 @@ describe.skipIf(!chromiumPath)('the Bench layouts, keyboard path and legibility'
         return el?.dataset.testid ?? el?.dataset.partStop ?? el?.tagName ?? '';
       });
 
-    // The app's own skip link, then the Bench's first tab stop.
-    await press('Tab');
-    expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Skip to content');
-    await press('Enter');
-    await press('Tab');
-    expect(await focused()).toBe('skip-drawing');
+    // Past the top bar to the Bench's first tab stop, its skip link to the drawing.
+    while ((await focused()) !== 'skip-drawing') {
+      expect(moves).toBeLessThan(10);
+      await press('Tab');
+    }
     await press('Enter');
     // The drawing is one tab stop: it lands on a part, and arrow keys walk the parts to the front-counter set.
     expect(await page.evaluate(() => document.activeElement?.hasAttribute('data-part-stop'))).toBe(true);
@@ -182,7 +184,7 @@ describe.skipIf(!chromiumPath)('the Bench layouts, keyboard path and legibility'
     // Escape closes the panel and gives focus back to the set on the drawing.
     await press('Escape');
     await page.getByTestId('operating-panel').waitFor({ state: 'detached' });
-    expect(await focused()).toBe('front-counter');
+    expect(await focused()).toBe('node-front-counter');
   });
 
   it('at 1280×800 and the default fit every canvas label renders at 11 px or more and every key is 24×24 or more', async () => {
