@@ -61,28 +61,28 @@ for (const scheme of ['light', 'dark'] as const) {
       const { page } = session;
       await page.getByTestId('plan-row').getByRole('link').first().click();
       await page.waitForURL(/\/plans\/[^/]+$/);
-      await page.getByRole('heading', { name: /^Fault list/ }).waitFor();
+      await page.getByRole('heading', { name: /^Findings/ }).waitFor();
       await page.locator('[data-testid^="node-"]').first().waitFor();
       expect(await page.locator('[data-testid^="node-"]').count()).toBeGreaterThan(1);
       await screenshot(page, `bench-demo-${scheme}`);
       expect(await seriousViolations(page)).toEqual([]);
     });
 
-    it('the Bench with sweep results, a chosen finding and a proposed remedy', async () => {
+    it('the Bench with sweep results, a chosen finding and a proposed cure', async () => {
       const { page } = session;
       await page.getByTestId('panel-tab-sweep').click();
       await page.getByTestId('sweep-run').click();
       await page.getByTestId('sweep-summary').waitFor({ timeout: 60_000 });
       expect(await seriousViolations(page)).toEqual([]);
 
-      // Put the drawing into the first listed fault's state and open it in the fault list with its path.
+      // Put the drawing into the first listed fault's state and open it in Findings with its path.
       await page.getByTestId('sweep-show-0').click();
-      await page.getByTestId('panel-tab-faults').click();
+      await page.getByTestId('panel-tab-findings').click();
       await page.getByRole('list', { name: 'Conductor path' }).waitFor();
       await screenshot(page, `bench-demo-traced-${scheme}`);
       expect(await seriousViolations(page)).toEqual([]);
 
-      await page.getByTestId('panel-tab-remedy').click();
+      await page.getByTestId('panel-tab-cure').click();
       await page.getByTestId('cure-run').click();
       await page.getByTestId('cure-message').waitFor({ timeout: 60_000 });
       expect(await seriousViolations(page)).toEqual([]);

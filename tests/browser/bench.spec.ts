@@ -57,7 +57,7 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
   let page: Page;
   let errors: string[];
   let planUrl = '';
-  /** How many lead changes the applied remedy made. */
+  /** How many lead changes the applied cure made. */
   let cureCount = 0;
 
   /** Lead changes recorded on the sets, as their nodes state them ("3 lead changes"). */
@@ -155,7 +155,7 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
     await expect.poll(() => heard.innerText()).toMatch(/line 1\b.*line 5\b/);
     expect(await page.getByTestId('ksu-line-1').innerText()).toMatch(/joined to 5/);
     expect(await page.getByTestId('ksu-line-5').innerText()).toMatch(/joined to 1/);
-    await page.getByTestId('panel-tab-faults').click();
+    await page.getByTestId('panel-tab-findings').click();
 
     // Two hands-free sets bridged on one cable share their common talk pair, so line 1 and line 5 meet
     // (our own six-key hands-free template: pairs 23–25 carry the hands-free leads; common practice).
@@ -215,35 +215,35 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
     await joined.waitFor();
     await screenshot(page, 'bench-4-sweep');
 
-    // "Show" puts the drawing into a state where the fault appears and picks it in the fault list.
+    // "Show" puts the drawing into a state where the fault appears and picks it in Findings.
     await joined.getByRole('button', { name: /^Show the state for/ }).click();
-    await page.getByTestId('panel-tab-faults').click();
+    await page.getByTestId('panel-tab-findings').click();
     const finding = page.getByTestId('finding-LINES_JOINED').first();
     await finding.waitFor();
     expect(await finding.getAttribute('aria-pressed')).toBe('true');
     expect(await page.locator('.lb-key[aria-pressed="true"]').count()).toBeGreaterThanOrEqual(2);
   });
 
-  it('applies the proposed remedy, clearing the faults, and undo brings them back', async () => {
-    await page.getByTestId('panel-tab-remedy').click();
+  it('applies the proposed cure, clearing the faults, and undo brings them back', async () => {
+    await page.getByTestId('panel-tab-cure').click();
     await page.getByTestId('cure-run').click();
     const message = page.getByTestId('cure-message');
     await message.waitFor({ timeout: 30_000 });
     const changes = page.getByTestId('cure-changes').getByRole('listitem');
     cureCount = await changes.count();
     expect(cureCount).toBeGreaterThan(0);
-    // The remedy's own summary states the same count it lists.
+    // The cure's own summary states the same count it lists.
     expect(await message.innerText()).toContain(`${cureCount} lead change`);
     // The solver ran in the worker (its WebAssembly loaded from the built client) and states its proof.
     expect(await page.getByTestId('cure-proof').innerText()).toMatch(
       /^No cure with fewer than \d+ changes? exists/,
     );
-    await screenshot(page, 'bench-5-remedy');
+    await screenshot(page, 'bench-5-cure');
     expect(await leadChangesOnSets()).toBe(0);
 
     await page.getByTestId('cure-apply').click();
     await expect.poll(leadChangesOnSets).toBe(cureCount);
-    await page.getByTestId('panel-tab-faults').click();
+    await page.getByTestId('panel-tab-findings').click();
     await page.getByText('No faults in the present state.').waitFor();
     expect(await page.locator('[data-testid^="finding-"]').count()).toBe(0);
 

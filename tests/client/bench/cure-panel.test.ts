@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { nextTick } from 'vue';
 import { PlanSchema } from '@shared/engine';
 import demo from '@shared/engine/examples/demo-plan.json';
-import RemedyPanel from '@/components/bench/RemedyPanel.vue';
+import CurePanel from '@/components/bench/CurePanel.vue';
 import { benchWith } from './bench-fixture';
 import { untilIdle, workerHost } from './worker-host';
 
@@ -15,7 +15,7 @@ import { untilIdle, workerHost } from './worker-host';
  */
 async function runCure(choose: (t: ReturnType<typeof workerHost>) => Promise<void> = async () => {}) {
   const store = benchWith(PlanSchema.parse(demo));
-  const t = workerHost(RemedyPanel);
+  const t = workerHost(CurePanel);
   await choose(t);
   await t.wrapper.get('[data-testid="cure-run"]').trigger('click');
   await untilIdle(t.worker);

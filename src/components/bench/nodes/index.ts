@@ -18,14 +18,14 @@ export interface CableData {
 }
 
 /* eslint-disable @typescript-eslint/no-explicit-any -- vue-flow's custom-event slot is unused here */
-export type KeySetFlowNode = Node<SetData, any, 'key-set'>;
+export type SetFlowNode = Node<SetData, any, 'set'>;
 export type KsuFlowNode = Node<KsuData, any, 'ksu'>;
 export type AdapterFlowNode = Node<AdapterData, any, 'adapter'>;
 export type AddOnFlowNode = Node<AddOnData, any, 'add-on'>;
 export type CableFlowEdge = Edge<CableData, any, 'cable'>;
 /* eslint-enable @typescript-eslint/no-explicit-any */
 
-export type BenchFlowNode = KeySetFlowNode | KsuFlowNode | AdapterFlowNode | AddOnFlowNode;
+export type BenchFlowNode = SetFlowNode | KsuFlowNode | AdapterFlowNode | AddOnFlowNode;
 
 export interface PortView {
   name: string;
@@ -64,7 +64,15 @@ function placed(pos: { x: number; y: number } | undefined, index: number, column
   return pos ?? { x: DEFAULT_X + column * 320, y: DEFAULT_Y + index * 260 };
 }
 
+/**
+ * The part frame inside each node is the drawing's roving tab stop (canvas-view.ts), so vue-flow's own
+ * wrapper stays out of the tab order.
+ */
 export function planToNodes(plan: Plan): BenchFlowNode[] {
+  return partNodes(plan).map((n) => ({ ...n, focusable: false }));
+}
+
+function partNodes(plan: Plan): BenchFlowNode[] {
   const nodes: BenchFlowNode[] = [
     {
       id: plan.ksu.id,
@@ -77,7 +85,7 @@ export function planToNodes(plan: Plan): BenchFlowNode[] {
     nodes.push({ id: a.id, type: 'adapter', position: placed(a.position, i, 1), data: { partId: a.id } }),
   );
   plan.sets.forEach((s, i) =>
-    nodes.push({ id: s.id, type: 'key-set', position: placed(s.position, i, 2), data: { partId: s.id } }),
+    nodes.push({ id: s.id, type: 'set', position: placed(s.position, i, 2), data: { partId: s.id } }),
   );
   plan.addOns.forEach((a, i) =>
     nodes.push({ id: a.id, type: 'add-on', position: placed(a.position, i, 3), data: { partId: a.id } }),

@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import type { ComponentOptions } from 'vue';
-import KeySetNode from '@/components/bench/nodes/KeySetNode.vue';
+import SetNode from '@/components/bench/nodes/SetNode.vue';
 import { benchWith, mountNode } from './bench-fixture';
 
 function mountSet(partId = 'front') {
-  return mountNode(KeySetNode, partId, 'key-set', { width: 240, height: 200 });
+  return mountNode(SetNode, partId, 'set', { width: 240, height: 200 });
 }
 
-describe('KeySetNode', () => {
+describe('SetNode', () => {
   it('renders one key per template key, each with a lamp word', () => {
     benchWith();
     const wrapper = mountSet();
@@ -66,7 +66,7 @@ describe('KeySetNode', () => {
         renders++;
       },
     };
-    const wrapper = mountNode(KeySetNode, 'back', 'key-set', { width: 240, height: 200 }, [countRenders]);
+    const wrapper = mountNode(SetNode, 'back', 'set', { width: 240, height: 200 }, [countRenders]);
     const evaluation = store.evaluation;
     // A line key latched on another set that stays on hook seizes nothing: the back set sees no change
     // (common practice, no published source), though the store holds a new evaluation.
