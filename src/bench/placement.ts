@@ -72,7 +72,7 @@ export function placePart(
   let bestDistance = Infinity;
   for (const x of xs) {
     for (const y of ys) {
-      const r = { x, y, ...size };
+      const r = { x, y, width: size.width, height: size.height };
       if (!inside(r, bounds) || !free(r)) continue;
       const d = (x - origin.x) ** 2 + (y - origin.y) ** 2;
       if (d < bestDistance) {

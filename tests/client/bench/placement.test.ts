@@ -47,7 +47,7 @@ describe('placePart', () => {
         rect,
         (taken, want, size) => {
           const at = placePart(want, size, taken, VIEW, { gap: GAP });
-          const placed = { ...at, ...size };
+          const placed = { ...at, width: size.width, height: size.height };
           for (const t of taken) expect(overlaps(placed, t, GAP)).toBe(false);
           expect(Number.isInteger(at.x / 20)).toBe(true);
           expect(Number.isInteger(at.y / 20)).toBe(true);
