@@ -60,7 +60,10 @@ describe('placePart', () => {
   it('stays inside the view whenever a free column is left at its left edge', () => {
     fc.assert(
       fc.property(
-        fc.array(rect.map((r) => ({ ...r, x: Math.max(r.x, 300) })), { maxLength: 20 }),
+        fc.array(
+          rect.map((r) => ({ ...r, x: Math.max(r.x, 300) })),
+          { maxLength: 20 },
+        ),
         fc.record({ x: fc.integer({ min: -500, max: 1700 }), y: fc.integer({ min: -500, max: 1300 }) }),
         (taken, want) => {
           const at = placePart(want, SIZE, taken, VIEW, { gap: GAP });
