@@ -108,7 +108,9 @@ export async function tidyLayout(
   for (const edge of (graph.edges ?? []) as ElkExtendedEdge[]) {
     const section = edge.sections?.[0];
     if (!section) continue;
-    routes[edge.id] = [section.startPoint, ...(section.bendPoints ?? []), section.endPoint].map(shift).reverse();
+    routes[edge.id] = [section.startPoint, ...(section.bendPoints ?? []), section.endPoint]
+      .map(shift)
+      .reverse();
   }
   return {
     positions: parts.map((p) => ({ id: p.id, position: shift(placed.get(p.id) ?? { x: 0, y: 0 }) })),
