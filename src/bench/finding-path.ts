@@ -43,17 +43,17 @@ const hasPair = (hop: Hop): hop is Hop & { pair: number } => typeof hop.pair ===
  */
 export function pathStrip(path: Hop[]): PathStep[] {
   const steps: PathStep[] = [];
-  let last: PartStep | null = null;
+  let lastPart: string | null = null;
   let shown: PairStep | null = null;
   for (const hop of path) {
-    if (last?.part === hop.part) continue;
-    const carried = last && hasPair(hop) ? pairStep(hop) : null;
+    if (lastPart === hop.part) continue;
+    const carried = lastPart !== null && hasPair(hop) ? pairStep(hop) : null;
     if (carried && (shown?.pair !== carried.pair || shown.conductor !== carried.conductor)) {
       steps.push(carried);
       shown = carried;
     }
-    last = { kind: 'part', part: hop.part, name: hop.partName };
-    steps.push(last);
+    lastPart = hop.part;
+    steps.push({ kind: 'part', part: hop.part, name: hop.partName });
   }
   return steps;
 }
