@@ -39,7 +39,7 @@ const inside = (r: Rect, bounds: Rect) =>
  * The top-left corner for a part of `size` whose centre the user dropped at `want`.
  * Candidates are the wanted spot and every spot flush against a part's side or the bounds' edge (the nearest free
  * spot of axis-aligned boxes is always one of them), snapped outward to the grid; the nearest free one inside
- * `bounds` wins. When the bounds are full it goes below everything, still on no part.
+ * `bounds` wins. When the view is full, the nearest free spot beyond it (the canvas then shows it); never on a part.
  */
 export function placePart(
   want: Point,
@@ -68,20 +68,24 @@ export function placePart(
   ]);
   const free = (r: Rect) => taken.every((t) => !overlaps(r, t, gap));
 
-  let best: Point | null = null;
-  let bestDistance = Infinity;
-  for (const x of xs) {
-    for (const y of ys) {
-      const r = { x, y, width: size.width, height: size.height };
-      if (!inside(r, bounds) || !free(r)) continue;
-      const d = (x - origin.x) ** 2 + (y - origin.y) ** 2;
-      if (d < bestDistance) {
-        best = { x, y };
-        bestDistance = d;
+  const nearest = (within: Rect | null): Point | null => {
+    let best: Point | null = null;
+    let bestDistance = Infinity;
+    for (const x of xs) {
+      for (const y of ys) {
+        const r = { x, y, width: size.width, height: size.height };
+        if ((within && !inside(r, within)) || !free(r)) continue;
+        const d = (x - origin.x) ** 2 + (y - origin.y) ** 2;
+        if (d < bestDistance) {
+          best = { x, y };
+          bestDistance = d;
+        }
       }
     }
-  }
-  if (best) return best;
+    return best;
+  };
+  const found = nearest(bounds) ?? nearest(null);
+  if (found) return found;
   const bottom = Math.max(bounds.y, ...taken.map((t) => t.y + t.height));
   return { x: up(bounds.x), y: up(bottom + gap) };
 }

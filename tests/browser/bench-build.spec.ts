@@ -88,8 +88,11 @@ describe.skipIf(!chromiumPath)('building on the Bench', () => {
     await page.getByTestId('node-ksu').waitFor();
 
     for (const code of ['21', '22']) {
-      await page.getByLabel('New station code').fill(code);
-      await page.getByRole('button', { name: 'Add', exact: true }).click();
+      const form = page.getByTestId('palette-ksu');
+      await form
+        .locator('[aria-label="New station code"] input, input[aria-label="New station code"]')
+        .fill(code);
+      await form.getByRole('button', { name: 'Add', exact: true }).click();
       await page.getByRole('button', { name: `Remove intercom station ${code}` }).waitFor();
     }
     await page.getByTestId('palette-six-key-hf').click();
@@ -109,6 +112,8 @@ describe.skipIf(!chromiumPath)('building on the Bench', () => {
   });
 
   it('tidies the drawing in one step and one undo puts every part back', async () => {
+    await page.getByTestId('fit-view').click();
+    await page.waitForTimeout(400);
     await cable(page, 'port-set-1-cord', 'port-ksu-port-1');
     await expect.poll(() => page.locator('.vue-flow__edge').count()).toBe(1);
     await cable(page, 'port-set-2-cord', 'port-ksu-port-2');
@@ -117,7 +122,9 @@ describe.skipIf(!chromiumPath)('building on the Bench', () => {
     const before = await positions(page);
     await page.getByTestId('tidy').click();
     await expect.poll(async () => JSON.stringify(await positions(page))).not.toBe(JSON.stringify(before));
-    await expect.poll(() => page.getByTestId('undo').getAttribute('aria-label')).toBe('Undo: Tidy the drawing');
+    await expect
+      .poll(() => page.getByTestId('undo').getAttribute('aria-label'))
+      .toBe('Undo: Tidy the drawing');
     const tidied = await nodeBoxes(page);
     for (let i = 0; i < tidied.length; i += 1)
       for (let j = i + 1; j < tidied.length; j += 1) expect(apart(tidied[i], tidied[j])).toBe(true);

@@ -19,9 +19,9 @@ export const GRID = 20;
 
 /** Drawn sizes of parts not yet on the canvas, about what their nodes measure (an add-on is smaller). */
 const NEW_PART_SIZE: Record<PartRequest['kind'], Size> = {
-  set: DEFAULT_PART_SIZE,
-  adapter: { width: 200, height: 140 },
-  'add-on': { width: 220, height: 140 },
+  set: { width: 300, height: 240 },
+  adapter: { width: 220, height: 120 },
+  'add-on': { width: 220, height: 120 },
 };
 
 export interface CableEdgeData {
@@ -145,9 +145,25 @@ export function useBenchGraph() {
     return { x: a.x, y: a.y, width: b.x - a.x, height: b.y - a.y };
   }
 
+  /** The size a new part of `kind` will be drawn at: as big as the largest of its kind already drawn. */
+  function newPartSize(kind: PartRequest['kind']): Size {
+    const plan = store.plan;
+    const list = kind === 'set' ? plan?.sets : kind === 'adapter' ? plan?.adapters : plan?.addOns;
+    const ids = new Set(list?.map((p) => p.id));
+    return flow.getNodes.value
+      .filter((n) => ids.has(n.id))
+      .reduce(
+        (size, n) => ({
+          width: Math.max(size.width, n.dimensions.width),
+          height: Math.max(size.height, n.dimensions.height),
+        }),
+        NEW_PART_SIZE[kind],
+      );
+  }
+
   /** Where a part of `kind` wanted at `point` (drawing coordinates) lands: the nearest free spot in view. */
   function freeSpot(kind: PartRequest['kind'], point: Point): Point {
-    return placePart(point, NEW_PART_SIZE[kind], taken(), visibleBounds(), { grid: GRID, gap: GRID });
+    return placePart(point, newPartSize(kind), taken(), visibleBounds(), { grid: GRID, gap: GRID });
   }
 
   /** Where a part added from the tray by a click lands: the free spot nearest the middle of the view. */

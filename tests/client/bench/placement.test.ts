@@ -26,10 +26,13 @@ describe('placePart', () => {
     expect(at.y).toBeGreaterThanOrEqual(0);
   });
 
-  it('goes below everything when the view has no room left', () => {
+  it('goes to the nearest free spot beyond the view when the view has no room left', () => {
     const full: Rect = { x: -10, y: -10, width: 1220, height: 820 };
-    const at = placePart({ x: 600, y: 400 }, SIZE, [full], VIEW, { gap: GAP });
+    const at = placePart({ x: 600, y: 500 }, SIZE, [full], VIEW, { gap: GAP });
     expect(overlaps({ ...at, ...SIZE }, full, GAP)).toBe(false);
+    // Nearest is below the full box: its bottom 810 plus the 20 gap, up to the grid, is 840 (400 from the
+    // wanted top 440); above it would be -160 (600 away).
+    expect(at).toEqual({ x: 500, y: 840 });
   });
 
   const rect = fc.record({
