@@ -434,3 +434,43 @@ export function applyCure(plan: Plan, result: CureResult): EditOutcome {
     plan: engineApplyCure(plan, result),
   };
 }
+
+/**
+ * Splice a new add-on into a set's cable: the set's cord now plugs into the add-on's jack, and the cable that
+ * left the set leaves the add-on's plug instead, to wherever it went. One edit, so one undo takes it all back.
+ * A set with nothing on its cord just gets the add-on on it.
+ */
+export function spliceAddOn(plan: Plan, template: string, setId: string, position: Position): EditOutcome {
+  const added = addAddOn(plan, template, setId, position);
+  if (!added.ok || !added.id) return added;
+  const t = getTemplate(template);
+  const plug = t?.ports.find((p) => p.gender === 'plug')?.name;
+  const jack = t?.ports.find((p) => p.gender === 'jack')?.name;
+  const cord = getTemplate(plan.sets.find((s) => s.id === setId)?.template ?? '')?.ports.find(
+    (p) => p.gender === 'plug',
+  )?.name;
+  if (!plug || !jack || !cord) return refuse('This add-on has no plug and jack to splice with.');
+  if (plan.cables.length >= MAX.cables) return refuse(`A plan takes at most ${MAX.cables} cables.`);
+  const id = added.id;
+  const onCord = (end: PortRef) => end.part === setId && end.port === cord;
+  const bridged = added.plan.cables.map((c) =>
+    onCord(c.from)
+      ? { ...c, from: { part: id, port: plug } }
+      : onCord(c.to)
+        ? { ...c, to: { part: id, port: plug } }
+        : c,
+  );
+  const next: Plan = {
+    ...added.plan,
+    cables: [
+      ...bridged,
+      { id: nextId(added.plan, 'cable'), from: { part: setId, port: cord }, to: { part: id, port: jack } },
+    ],
+  };
+  const outcome = unlessNewIssues(
+    plan,
+    next,
+    `Splice ${t?.title ?? 'add-on'} into ${partName(plan, setId)}'s cable`,
+  );
+  return outcome.ok ? { ...outcome, id } : outcome;
+}

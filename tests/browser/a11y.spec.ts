@@ -78,6 +78,7 @@ for (const scheme of ['light', 'dark'] as const) {
       // Put the drawing into the first listed fault's state and open it in Findings with its path.
       await page.getByTestId('sweep-show-0').click();
       await page.getByTestId('panel-tab-findings').click();
+      await page.getByTestId('finding-hops-toggle').click();
       await page.getByRole('list', { name: 'Conductor path' }).waitFor();
       await screenshot(page, `bench-demo-traced-${scheme}`);
       expect(await seriousViolations(page)).toEqual([]);

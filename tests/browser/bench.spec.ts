@@ -165,11 +165,12 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
 
     await finding.click();
     expect(await finding.getAttribute('aria-pressed')).toBe('true');
+    await page.getByTestId('finding-hops-toggle').click();
     const hops = page.getByRole('list', { name: 'Conductor path' }).getByRole('listitem');
     await hops.first().waitFor();
     expect(await hops.count()).toBeGreaterThan(2);
     const hopText = (await hops.allInnerTexts()).join('\n');
-    expect(hopText).toMatch(/pair 2[345] \(/);
+    expect(hopText).toMatch(/pair 2[345] (tip|ring)/);
 
     // The path is lit on the drawing: both cords and the sets on them.
     await expect.poll(() => page.locator('.lb-cable--highlight').count()).toBeGreaterThanOrEqual(2);

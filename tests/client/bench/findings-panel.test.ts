@@ -25,12 +25,26 @@ describe('FindingsPanel', () => {
     const cables = first.path.flatMap((h) => (h.cable ? [h.cable] : []));
     for (const c of cables) expect(store.highlight.cables.has(c)).toBe(true);
 
+    // The demo's speaker is bridged onto the front counter's cord and both reach the workroom through the adapter.
+    expect(wrapper.get('[data-testid="finding-sentence"]').text()).toBe(
+      'The conductors of Front counter and Workroom meet on pair 23 (violet-green) tip (the violet conductor), through Counter speaker and Bridging adapter.',
+    );
+    // Pair 23 is violet-green and its tip is violet (ICEA S-80-576 colour code).
+    const strip = wrapper.findAll('[data-testid="finding-strip"] > li').map((li) => li.text());
+    expect(strip).toEqual([
+      'Front counter',
+      '23 violet-green tip',
+      'Counter speaker',
+      'Bridging adapter',
+      'Workroom',
+    ]);
+
+    expect(wrapper.findAll('.lb-hop')).toHaveLength(0);
+    await wrapper.get('[data-testid="finding-hops-toggle"]').trigger('click');
     const hops = wrapper.findAll('.lb-hop');
     expect(hops).toHaveLength(first.path.length);
-    const withPair = first.path.findIndex((h) => h.pair === 23 && h.conductor === 'tip');
-    // Pair 23 is violet-green and its tip is violet (ICEA S-80-576 colour code).
-    expect(hops[withPair].text()).toContain('pair 23 (violet-green), tip:');
-    expect(hops[withPair].find('.lb-colour').text()).toBe('violet');
+    // Each hop is said once: its own words and nothing repeated beside them.
+    hops.forEach((hop, i) => expect(hop.text()).toBe(first.path[i].text));
 
     await items[index].trigger('click');
     expect(store.selectedFinding).toBeNull();

@@ -284,3 +284,43 @@ describe('random tray and canvas edits', () => {
     );
   });
 });
+
+describe('splicing an add-on into a set cable', () => {
+  it('bridges the add-on between the set and where its cable went, as the demo wires its speaker', () => {
+    // The demo plan wires a hands-free unit this way: set cord → unit jack "set", unit cord → adapter jack.
+    const plan = accepted(edits.spliceAddOn(twoSetPlan(), 'hands-free-unit', 'front', { x: 400, y: 0 }));
+    const addOn = plan.addOns.at(-1);
+    expect(addOn?.serves).toBe('front');
+    const byId = new Map(plan.cables.map((c) => [c.id, c]));
+    // The cable that ran from the front set to the bridge keeps its id and now leaves the add-on's plug.
+    expect(byId.get('c-front')?.from).toEqual({ part: addOn?.id, port: 'cord' });
+    expect(byId.get('c-front')?.to).toEqual({ part: 'bridge', port: 'jack-1' });
+    const setCord = plan.cables.filter((c) => c.from.part === 'front' || c.to.part === 'front');
+    expect(setCord).toHaveLength(1);
+    expect(setCord[0].to).toEqual({ part: addOn?.id, port: 'set' });
+    expect(plan.cables).toHaveLength(4);
+    expectValid(plan);
+  });
+
+  it('puts the add-on on the cord of a set that has no cable yet', () => {
+    const base = accepted(edits.removePart(twoSetPlan(), 'c-back'));
+    const plan = accepted(edits.spliceAddOn(base, 'hands-free-unit', 'back', at));
+    const id = plan.addOns.at(-1)?.id;
+    expect(plan.cables.filter((c) => c.from.part === id || c.to.part === id)).toEqual([
+      expect.objectContaining({ from: { part: 'back', port: 'cord' }, to: { part: id, port: 'set' } }),
+    ]);
+    expectValid(plan);
+  });
+
+  it('refuses a set that is not in the plan and leaves the plan unchanged', () => {
+    const result = edits.spliceAddOn(twoSetPlan(), 'hands-free-unit', 'nobody', at);
+    expect(result.ok).toBe(false);
+  });
+
+  it.each(STARTS)('keeps the %s valid when spliced onto every set in turn', (_name, start) => {
+    let plan = start;
+    for (const set of start.sets) plan = accepted(edits.spliceAddOn(plan, 'hands-free-unit', set.id, at));
+    expect(plan.addOns.length).toBe(start.addOns.length + start.sets.length);
+    expectValid(plan);
+  });
+});
