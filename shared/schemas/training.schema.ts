@@ -145,6 +145,7 @@ export const SetSightingSchema = z
     tones: z.array(ToneNameSchema),
     buzzer: z.boolean(),
     ringer: z.boolean(),
+    hum: z.boolean(),
   })
   .strict();
 export type SetSightingView = z.infer<typeof SetSightingSchema>;

@@ -26,6 +26,8 @@ export interface SetSighting {
   tones: ToneName[];
   buzzer: boolean;
   ringer: boolean;
+  /** Hum or another circuit heard faintly in the handset (a line it hears runs over a split pair). */
+  hum: boolean;
 }
 
 export interface Sighting {
@@ -34,6 +36,7 @@ export interface Sighting {
 
 export function sightingOf(plan: Plan, state: SimState): Sighting {
   const evaluation = evaluate(plan, state, { paths: false });
+  const noisy = new Set(evaluation.lines.filter((l) => (l.noise?.length ?? 0) > 0).map((l) => l.line));
   return {
     sets: evaluation.sets.map((s) => ({
       set: s.set,
@@ -44,6 +47,7 @@ export function sightingOf(plan: Plan, state: SimState): Sighting {
       tones: s.tones.map((t) => t.tone).sort(),
       buzzer: s.buzzer,
       ringer: s.ringer,
+      hum: s.hears.some((line) => noisy.has(line)),
     })),
   };
 }

@@ -8,6 +8,7 @@ import { evaluate, PlanSchema, type Plan, type SimAction, type WiringFault } fro
 import { cableWires } from '../../shared/engine/model/cable-faults';
 import { operate, planBuilder } from '../support/plan-builder';
 import '../support/matchers';
+import { sightingOf } from '../../shared/training/sightings';
 
 /** KSU port 1 → one set's cord on cable c1, with the given faults in that cable. */
 function oneSet(template: string, faults: WiringFault[] = []) {
@@ -138,6 +139,15 @@ describe('split pair', () => {
     // Crosstalk between the two circuits of the split (common practice, no published source).
     expect(ev.lines[0].noise?.[0]).toMatch(/^Hum on line 1, and line 2 is heard faintly: in cable c3 the tip of pair 1/);
     expect(ev.lines[1].noise?.[0]).toMatch(/^Hum on line 2, and line 1 is heard faintly/);
+  });
+
+  it('lets a person at the set hear the hum (the trainee sighting), and only over the split', () => {
+    const faulty = twoSets(true);
+    const healthy = twoSets(false);
+    const state = (p: typeof faulty) => operate(p.plan, [...onLine(p.front, 1), ...onLine(p.back, 2)]);
+    // Crosstalk over a split pair is audible in the handset (common practice, no published source).
+    expect(sightingOf(faulty.plan, state(faulty)).sets.map((s) => s.hum)).toEqual([true, false]);
+    expect(sightingOf(healthy.plan, state(healthy)).sets.map((s) => s.hum)).toEqual([false, false]);
   });
 
   it('is quiet and works on both lines with the cable healthy', () => {
