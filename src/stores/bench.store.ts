@@ -13,26 +13,21 @@ import {
   evaluate,
   initialState,
   crossReferenceIssues,
-  type CureResult,
   type Evaluation,
   type Finding,
   type Plan,
-  type PortRef,
   type SimAction,
   type SimState,
 } from '@shared/engine';
 import * as edits from '@/bench/plan-edits';
-import { partIds, simShape, type EditOutcome, type Position } from '@/bench/plan-edits';
+import { simShape, type EditOutcome } from '@/bench/plan-edits';
+import { recordEdit, redoStep, undoStep, type History, type HistoryEntry } from '@/bench/edit-history';
+import { highlightOf, keptSelection } from '@/bench/bench-selection';
+import { refusalOf, type EditResult } from '@/bench/edit-refusal';
+import { editCommands } from '@/bench/edit-commands';
 import { useSessionStore } from './session.store';
 
-export interface HistoryEntry {
-  label: string;
-  plan: Plan;
-}
-
-export type EditResult = { ok: true } | { ok: false; reason: string };
-
-const HISTORY_LIMIT = 200;
+export type { HistoryEntry, EditResult };
 
 export interface LoadOptions {
   /** Server timestamp of this version; absent for a plan that is never saved (the guest bench). */
@@ -88,19 +83,7 @@ export const useBenchStore = defineStore('bench', () => {
   );
 
   /** Parts and cables on the selected finding's conductor path, for the canvas to light up. */
-  const highlight = computed(() => {
-    const parts = new Set<string>();
-    const cables = new Set<string>();
-    const finding = selectedFinding.value;
-    if (finding) {
-      for (const hop of finding.path) {
-        parts.add(hop.part);
-        if (hop.cable) cables.add(hop.cable);
-      }
-      finding.sets.forEach((s) => parts.add(s));
-    }
-    return { parts, cables };
-  });
+  const highlight = computed(() => highlightOf(selectedFinding.value));
 
   const selectedSet = computed(() => plan.value?.sets.find((s) => s.id === selectedPartId.value) ?? null);
   const selectedSetObservation = computed(
@@ -121,8 +104,19 @@ export const useBenchStore = defineStore('bench', () => {
       readOnly: reason = null,
       detached = false,
     } = typeof options === 'string' ? { updatedAt: options } : options;
-    openKey.value = id;
-    planId.value = detached ? null : id;
+    reset(id, detached ? null : id, document, updatedAt, reason);
+  }
+
+  /** Every piece of state a plan owns, set at once so opening and forgetting cannot drift apart. */
+  function reset(
+    key: string | null,
+    id: string | null,
+    document: Plan | null,
+    updatedAt?: string,
+    reason = null as string | null,
+  ) {
+    openKey.value = key;
+    planId.value = id;
     plan.value = document;
     baseUpdatedAt.value = updatedAt;
     readOnlyReason.value = reason;
@@ -130,7 +124,7 @@ export const useBenchStore = defineStore('bench', () => {
     future.value = [];
     revision.value = 0;
     savedRevision.value = 0;
-    sim.value = initialState(document);
+    sim.value = document ? initialState(document) : null;
     selectedPartId.value = null;
     selectedFindingKey.value = null;
   }
@@ -153,18 +147,7 @@ export const useBenchStore = defineStore('bench', () => {
 
   /** Forget the open plan and its history (another plan is about to be opened, or the user signed out). */
   function unload() {
-    openKey.value = null;
-    planId.value = null;
-    plan.value = null;
-    sim.value = null;
-    baseUpdatedAt.value = undefined;
-    readOnlyReason.value = null;
-    past.value = [];
-    future.value = [];
-    revision.value = 0;
-    savedRevision.value = 0;
-    selectedPartId.value = null;
-    selectedFindingKey.value = null;
+    reset(null, null, null);
   }
 
   /** The server holds the document as of `rev` (the revision that was sent), stamped `updatedAt`. */
@@ -188,32 +171,31 @@ export const useBenchStore = defineStore('bench', () => {
     plan.value = next;
     revision.value += 1;
     if (!prev || simShape(prev) !== simShape(next) || !sim.value) sim.value = initialState(next);
-    if (selectedPartId.value && !partIds(next).has(selectedPartId.value)) selectedPartId.value = null;
+    selectedPartId.value = keptSelection(next, selectedPartId.value);
+  }
+
+  function setHistory(history: History) {
+    past.value = history.past;
+    future.value = history.future;
   }
 
   /** Record one labelled edit. Every change to the document goes through here. */
   function commit(label: string, next: Plan) {
     if (!plan.value || readOnly.value || next === plan.value) return;
-    past.value = [...past.value, { label, plan: plan.value }].slice(-HISTORY_LIMIT);
-    future.value = [];
+    setHistory(recordEdit({ past: past.value, future: future.value }, label, plan.value));
     replacePlan(next);
   }
 
-  function undo() {
-    const entry = past.value.at(-1);
-    if (!entry || !plan.value || readOnly.value) return;
-    past.value = past.value.slice(0, -1);
-    future.value = [...future.value, { label: entry.label, plan: plan.value }];
-    replacePlan(entry.plan);
+  /** Walk the history one step (undo or redo); nothing happens on a read-only plan or at either end. */
+  function step(move: typeof undoStep) {
+    if (!plan.value || readOnly.value) return;
+    const moved = move({ past: past.value, future: future.value }, plan.value);
+    if (!moved) return;
+    setHistory(moved.history);
+    replacePlan(moved.plan);
   }
-
-  function redo() {
-    const entry = future.value.at(-1);
-    if (!entry || !plan.value || readOnly.value) return;
-    future.value = future.value.slice(0, -1);
-    past.value = [...past.value, { label: entry.label, plan: plan.value }];
-    replacePlan(entry.plan);
-  }
+  const undo = () => step(undoStep);
+  const redo = () => step(redoStep);
 
   function requirePlan(): Plan {
     if (!plan.value) throw new Error('No plan is open on the bench');
@@ -249,8 +231,8 @@ export const useBenchStore = defineStore('bench', () => {
 
   /** Commit an accepted edit and tell the caller what happened; a refusal records nothing. */
   function run(outcome: EditOutcome): EditResult {
-    if (readOnlyReason.value !== null) return { ok: false, reason: readOnlyReason.value };
-    if (!outcome.ok) return outcome;
+    const refusal = refusalOf(readOnlyReason.value, outcome);
+    if (refusal || !outcome.ok) return refusal ?? outcome;
     commit(outcome.label, outcome.plan);
     return { ok: true };
   }
@@ -261,17 +243,7 @@ export const useBenchStore = defineStore('bench', () => {
     return result.ok && outcome.ok ? (outcome.id ?? null) : null;
   }
 
-  const partName = (id: string) => edits.partName(requirePlan(), id);
-  const addSet = (template: string, position: Position) =>
-    runAdd(edits.addSet(requirePlan(), template, position));
-  const addAdapter = (template: string, position: Position) =>
-    runAdd(edits.addAdapter(requirePlan(), template, position));
-  const addAddOn = (template: string, serves: string, position: Position) =>
-    runAdd(edits.addAddOn(requirePlan(), template, serves, position));
-  const moveParts = (moves: { id: string; position: Position }[]) =>
-    run(edits.moveParts(requirePlan(), moves));
-  const movePart = (id: string, position: Position) => moveParts([{ id, position }]);
-  const renamePart = (id: string, name: string) => run(edits.renamePart(requirePlan(), id, name));
+  const commands = editCommands(requirePlan, run, runAdd);
 
   function removePart(id: string): EditResult {
     const gone = edits.removedWith(requirePlan(), id);
@@ -279,28 +251,6 @@ export const useBenchStore = defineStore('bench', () => {
     if (result.ok && selectedPartId.value && gone.has(selectedPartId.value)) selectedPartId.value = null;
     return result;
   }
-
-  function duplicatePart(id: string): { ok: true; id: string } | { ok: false; reason: string } {
-    const outcome = edits.duplicatePart(requirePlan(), id);
-    const result = run(outcome);
-    if (!result.ok) return result;
-    return { ok: true, id: (outcome.ok && outcome.id) || id };
-  }
-
-  const connect = (a: PortRef, b: PortRef) => run(edits.connect(requirePlan(), a, b));
-  const liftLead = (id: string, pair: number, conductor: 'tip' | 'ring' | 'both' = 'both') =>
-    run(edits.liftLead(requirePlan(), id, pair, conductor));
-  const moveLead = (id: string, pair: number, toPair: number) =>
-    run(edits.moveLead(requirePlan(), id, pair, toPair));
-  const restoreLead = (id: string, pair: number) => run(edits.restoreLead(requirePlan(), id, pair));
-  const updateSet = (id: string, patch: Parameters<typeof edits.updateSet>[2]) =>
-    run(edits.updateSet(requirePlan(), id, patch));
-  const setAddOnServes = (id: string, serves: string) => run(edits.setAddOnServes(requirePlan(), id, serves));
-  const setLineCount = (count: number) => run(edits.setLineCount(requirePlan(), count));
-  const setPortCount = (count: number) => run(edits.setPortCount(requirePlan(), count));
-  const addStation = (code: string, label: string) => run(edits.addStation(requirePlan(), code, label));
-  const removeStation = (stationId: string) => run(edits.removeStation(requirePlan(), stationId));
-  const applyCure = (result: CureResult) => run(edits.applyCure(requirePlan(), result));
 
   return {
     openKey,
@@ -341,25 +291,7 @@ export const useBenchStore = defineStore('bench', () => {
     resetSim,
     select,
     selectFinding,
-    partName,
-    addSet,
-    addAddOn,
-    addAdapter,
-    movePart,
-    moveParts,
-    renamePart,
+    ...commands,
     removePart,
-    duplicatePart,
-    connect,
-    liftLead,
-    moveLead,
-    restoreLead,
-    updateSet,
-    setAddOnServes,
-    setLineCount,
-    setPortCount,
-    addStation,
-    removeStation,
-    applyCure,
   };
 });
