@@ -25,22 +25,12 @@ import { currentUser, requireUser } from '../http/auth.middleware';
 import { notFound } from '../http/http-error';
 import { singleUpload } from '../http/upload';
 import { parseBody, parseParams, parseQuery } from '../http/validate';
+import { fileNameOf } from './file-name';
 import { checkPlanDocument, checkPlanFile, checkPlanReferences } from './plan-document';
 import type { PlansRepo } from './plans.repo';
 import { viewerOf, type PlansService } from './plans.service';
 
 export const PlanIdParams = z.object({ id: z.string().min(1).max(64) });
-
-/** A file name made of the plan's name: letters, digits and dashes only. */
-const fileNameOf = (name: string) =>
-  `${
-    name
-      .normalize('NFKD')
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-|-$/g, '')
-      .slice(0, 60) || 'plan'
-  }.json`;
 
 export function plansRoutes(
   service: PlansService,
@@ -123,7 +113,7 @@ export function plansRoutes(
     const { id } = parseParams(PlanIdParams, req);
     const { row } = await service.visible(id, currentUser(res));
     const document = JSON.parse(row.document) as { name: string };
-    res.attachment(fileNameOf(document.name));
+    res.attachment(fileNameOf(document.name, '.json'));
     res.type('application/json').send(`${JSON.stringify(document, null, 2)}\n`);
   });
 

@@ -12,6 +12,7 @@ import {
 import { asFound } from '../../shared/work-sheet/as-found';
 import { currentUser, requireUser } from '../http/auth.middleware';
 import { parseBody, parseParams } from '../http/validate';
+import { fileNameOf } from './file-name';
 import { PlanIdParams } from './plans.routes';
 import type { PlansService } from './plans.service';
 import type { WorkRecordRepo } from './work-record.repo';
@@ -21,17 +22,6 @@ import { workSheetPdf } from './work-sheet-pdf';
 type PlanRow = { id: string; document: string };
 
 const documentOf = (row: PlanRow) => JSON.parse(row.document) as Plan;
-
-/** A file name made of the plan's name: letters, digits and dashes only. */
-const pdfName = (name: string) =>
-  `${
-    name
-      .normalize('NFKD')
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-|-$/g, '')
-      .slice(0, 60) || 'plan'
-  }-work-sheet.pdf`;
 
 export function workRecordRoutes(service: PlansService, records: WorkRecordRepo): Router {
   const router = Router({ mergeParams: true });
@@ -78,7 +68,10 @@ export function workRecordRoutes(service: PlansService, records: WorkRecordRepo)
     const record = await recordOf(row);
     const pdf = await workSheetPdf({ plan: documentOf(row), ...record });
     res.type('application/pdf');
-    res.setHeader('Content-Disposition', `inline; filename="${pdfName(documentOf(row).name)}"`);
+    res.setHeader(
+      'Content-Disposition',
+      `inline; filename="${fileNameOf(documentOf(row).name, '-work-sheet.pdf')}"`,
+    );
     res.send(pdf);
   });
 
