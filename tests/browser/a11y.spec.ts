@@ -5,12 +5,10 @@
  */
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import {
-  newAccount,
   openBrowser,
   screenshot,
   seriousViolations,
-  signUp,
-  waitForPath,
+  signUpToPlans,
   type BrowserSession,
 } from '../support/browser';
 
@@ -51,8 +49,7 @@ for (const scheme of ['light', 'dark'] as const) {
 
     it('plans page of a new account', async () => {
       const { page } = session;
-      await signUp(page, baseUrl, newAccount(`a11y-${scheme}`));
-      await waitForPath(page, '/plans');
+      await signUpToPlans(page, baseUrl, `a11y-${scheme}`);
       await page.getByTestId('plan-row').first().waitFor();
       expect(await seriousViolations(page)).toEqual([]);
     });

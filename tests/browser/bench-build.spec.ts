@@ -6,12 +6,11 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import {
-  collectPageErrors,
-  newAccount,
+  createBlankPlan,
   openBrowser,
   screenshot,
-  signUp,
-  waitForPath,
+  signUpToPlans,
+  startJourney,
   type BrowserSession,
 } from '../support/browser';
 
@@ -68,11 +67,8 @@ describe.skipIf(!chromiumPath)('building on the Bench', () => {
   let errors: string[];
 
   beforeAll(async () => {
-    session = await openBrowser(chromiumPath, { width: 1440, height: 900 });
-    page = session.page;
-    errors = collectPageErrors(page);
-    await signUp(page, baseUrl, newAccount('build'));
-    await waitForPath(page, '/plans');
+    ({ session, page, errors } = await startJourney(chromiumPath, { width: 1440, height: 900 }));
+    await signUpToPlans(page, baseUrl, 'build');
   });
 
   afterAll(async () => {
@@ -80,11 +76,7 @@ describe.skipIf(!chromiumPath)('building on the Bench', () => {
   });
 
   it('builds a plan from empty with the tray and sees it saved with no validation fault', async () => {
-    await page.getByTestId('new-plan').click();
-    await page.getByTestId('start-blank').click();
-    await page.getByLabel('Plan name').fill('Built from the tray');
-    await page.getByRole('button', { name: 'Create and open' }).click();
-    await page.waitForURL(/\/plans\/[^/]+$/);
+    await createBlankPlan(page, 'Built from the tray');
     await page.getByTestId('node-ksu').waitFor();
 
     for (const code of ['21', '22']) {

@@ -6,12 +6,10 @@
 import type { Page } from 'playwright-core';
 import { afterEach, describe, expect, inject, it } from 'vitest';
 import {
-  newAccount,
   openBrowser,
   screenshot,
   seriousViolations,
-  signUp,
-  waitForPath,
+  signUpToPlans,
   type BrowserSession,
 } from '../support/browser';
 
@@ -32,8 +30,7 @@ afterEach(async () => {
 async function openDemo(viewport: { width: number; height: number }, scheme: 'light' | 'dark' = 'light') {
   session = await openBrowser(chromiumPath, viewport, scheme);
   const { page } = session;
-  await signUp(page, baseUrl, newAccount('layout'));
-  await waitForPath(page, '/plans');
+  await signUpToPlans(page, baseUrl, 'layout');
   await page.getByTestId('plan-row').getByRole('link').first().click();
   await page.waitForURL(/\/plans\/[^/]+$/);
   await page.locator('[data-testid^="node-"]').first().waitFor();

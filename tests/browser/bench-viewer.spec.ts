@@ -9,10 +9,10 @@ import demo from '../../shared/engine/examples/demo-plan.json';
 import {
   DEMO_ACCOUNTS,
   DEMO_PASSWORD,
-  collectPageErrors,
-  openBrowser,
+  expectPickUpLightsLine,
   screenshot,
   signIn,
+  startJourney,
   waitForPath,
   type BrowserSession,
 } from '../support/browser';
@@ -55,9 +55,7 @@ describe.skipIf(!chromiumPath)('a plan shared to view, on the Bench', () => {
     });
     expect(share.status).toBe(201);
 
-    session = await openBrowser(chromiumPath, { width: 1440, height: 900 });
-    page = session.page;
-    errors = collectPageErrors(page);
+    ({ session, page, errors } = await startJourney(chromiumPath, { width: 1440, height: 900 }));
     await signIn(page, baseUrl, DEMO_ACCOUNTS.instructor);
     await waitForPath(page, '/plans');
   });
@@ -76,13 +74,7 @@ describe.skipIf(!chromiumPath)('a plan shared to view, on the Bench', () => {
   });
 
   it('operates a set: a line key and the handset light the line', async () => {
-    const key = page.getByTestId('key-front-counter-1');
-    const lamp = key.locator('[data-cadence]');
-    // An idle line is dark; a line picked up on a set lights steady (common practice, no published source).
-    expect(await lamp.getAttribute('data-cadence')).toBe('dark');
-    await key.click();
-    await page.getByTestId('handset-front-counter').click();
-    await expect.poll(() => lamp.getAttribute('data-cadence'), { timeout: 10_000 }).toBe('steady');
+    await expectPickUpLightsLine(page, 'front-counter', 1);
     expect(await page.getByTestId('handset-front-counter').getAttribute('aria-pressed')).toBe('true');
   });
 

@@ -6,11 +6,13 @@
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import {
-  collectPageErrors,
+  createBlankPlan,
   newAccount,
   openBrowser,
   screenshot,
   signUp,
+  signUpToPlans,
+  startJourney,
   waitForPath,
   type BrowserSession,
 } from '../support/browser';
@@ -67,11 +69,8 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
   }
 
   beforeAll(async () => {
-    session = await openBrowser(chromiumPath, { width: 1440, height: 900 });
-    page = session.page;
-    errors = collectPageErrors(page);
-    await signUp(page, baseUrl, newAccount('bench'));
-    await waitForPath(page, '/plans');
+    ({ session, page, errors } = await startJourney(chromiumPath, { width: 1440, height: 900 }));
+    await signUpToPlans(page, baseUrl, 'bench');
   });
 
   afterAll(async () => {
@@ -79,11 +78,7 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
   });
 
   it('draws a KSU, an adapter and two hands-free sets with cables, by mouse', async () => {
-    await page.getByTestId('new-plan').click();
-    await page.getByTestId('start-blank').click();
-    await page.getByLabel('Plan name').fill('Workshop from scratch');
-    await page.getByRole('button', { name: 'Create and open' }).click();
-    await page.waitForURL(/\/plans\/[^/]+$/);
+    await createBlankPlan(page, 'Workshop from scratch');
     planUrl = page.url();
 
     // An empty plan holds only its key service unit (src/plans/plan-starters.ts).

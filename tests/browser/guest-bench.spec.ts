@@ -6,10 +6,10 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import {
-  collectPageErrors,
+  expectPickUpLightsLine,
   newAccount,
-  openBrowser,
   screenshot,
+  startJourney,
   waitForPath,
   type BrowserSession,
 } from '../support/browser';
@@ -25,9 +25,7 @@ describe.skipIf(!chromiumPath)('the guest bench', () => {
   let errors: string[];
 
   beforeAll(async () => {
-    session = await openBrowser(chromiumPath, { width: 1440, height: 900 });
-    page = session.page;
-    errors = collectPageErrors(page);
+    ({ session, page, errors } = await startJourney(chromiumPath, { width: 1440, height: 900 }));
   });
 
   afterAll(async () => {
@@ -45,13 +43,7 @@ describe.skipIf(!chromiumPath)('the guest bench', () => {
   });
 
   it('lifts a handset and the line lamp changes', async () => {
-    const key = page.getByTestId('key-front-counter-1');
-    const lamp = key.locator('[data-cadence]');
-    // An idle line is dark; a line picked up on a set lights steady (common practice, no published source).
-    expect(await lamp.getAttribute('data-cadence')).toBe('dark');
-    await key.click();
-    await page.getByTestId('handset-front-counter').click();
-    await expect.poll(() => lamp.getAttribute('data-cadence'), { timeout: 10_000 }).toBe('steady');
+    await expectPickUpLightsLine(page, 'front-counter', 1);
     expect(new URL(page.url()).pathname).toBe('/try');
   });
 

@@ -9,11 +9,12 @@ import { join } from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import {
-  collectPageErrors,
+  createBlankPlan,
   newAccount,
-  openBrowser,
   signOut,
   signUp,
+  signUpToPlans,
+  startJourney,
   waitForPath,
   type BrowserSession,
 } from '../support/browser';
@@ -58,11 +59,8 @@ describe.skipIf(!chromiumPath)('the plans library', () => {
   }
 
   beforeAll(async () => {
-    session = await openBrowser(chromiumPath);
-    page = session.page;
-    errors = collectPageErrors(page);
-    await signUp(page, baseUrl, newAccount('library'));
-    await waitForPath(page, '/plans');
+    ({ session, page, errors } = await startJourney(chromiumPath));
+    await signUpToPlans(page, baseUrl, 'library');
   });
 
   afterAll(async () => {
@@ -73,11 +71,7 @@ describe.skipIf(!chromiumPath)('the plans library', () => {
   it('creates an empty plan and finds it in the table', async () => {
     // A new account holds one copy of the demo installation (server/auth/auth.service.ts).
     await expectRows(1);
-    await page.getByTestId('new-plan').click();
-    await page.getByTestId('start-blank').click();
-    await page.getByLabel('Plan name').fill(FIRST_NAME);
-    await page.getByRole('button', { name: 'Create and open' }).click();
-    await page.waitForURL(/\/plans\/[^/]+$/);
+    await createBlankPlan(page, FIRST_NAME);
     await page.goto(`${baseUrl}/plans`);
     await row(FIRST_NAME).waitFor();
     await expectRows(2);

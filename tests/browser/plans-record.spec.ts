@@ -8,15 +8,7 @@ import type { Page } from 'playwright-core';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import demoPlan from '../../shared/engine/examples/demo-plan.json';
-import {
-  collectPageErrors,
-  newAccount,
-  openBrowser,
-  screenshot,
-  signUp,
-  waitForPath,
-  type BrowserSession,
-} from '../support/browser';
+import { screenshot, signUpToPlans, startJourney, type BrowserSession } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
 const chromiumPath = inject('chromiumPath');
@@ -29,11 +21,8 @@ describe.skipIf(!chromiumPath)('the work record and photos', () => {
   const photoItems = () => page.getByTestId('part-photos').getByTestId('photo-item');
 
   beforeAll(async () => {
-    session = await openBrowser(chromiumPath);
-    page = session.page;
-    errors = collectPageErrors(page);
-    await signUp(page, baseUrl, newAccount('record'));
-    await waitForPath(page, '/plans');
+    ({ session, page, errors } = await startJourney(chromiumPath));
+    await signUpToPlans(page, baseUrl, 'record');
     // The demo installation with the Workroom set's buzzer pair lifted: one lead change, so one step to tick.
     const document = {
       ...demoPlan,

@@ -1,5 +1,6 @@
 /** Chromium for the browser journeys: Debian's build, headless, a fresh profile per launch. */
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { expect } from 'vitest';
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -146,4 +147,45 @@ export async function seriousViolations(page: Page, exclude: string[] = []): Pro
           (node.failureSummary ? ` (${node.failureSummary.replace(/\s+/g, ' ').trim()})` : ''),
       ),
     );
+}
+
+/** One journey's browser: the session, its page, and the page errors collected from the start. */
+export interface Journey {
+  session: BrowserSession;
+  page: Page;
+  errors: string[];
+}
+
+export async function startJourney(
+  executablePath: string,
+  viewport?: { width: number; height: number },
+): Promise<Journey> {
+  const session = await openBrowser(executablePath, viewport);
+  return { session, page: session.page, errors: collectPageErrors(session.page) };
+}
+
+/** Signs up a fresh account and waits for the plans page a new account lands on. */
+export async function signUpToPlans(page: Page, baseUrl: string, prefix: string): Promise<void> {
+  await signUp(page, baseUrl, newAccount(prefix));
+  await waitForPath(page, '/plans');
+}
+
+/** From the plans page: a new empty plan with this name, opened on the Bench. */
+export async function createBlankPlan(page: Page, name: string): Promise<void> {
+  await page.getByTestId('new-plan').click();
+  await page.getByTestId('start-blank').click();
+  await page.getByLabel('Plan name').fill(name);
+  await page.getByRole('button', { name: 'Create and open' }).click();
+  await page.waitForURL(/\/plans\/[^/]+$/);
+}
+
+/** Picks up a line on a set (its line key, then the handset) and checks the line's lamp goes from dark to steady. */
+export async function expectPickUpLightsLine(page: Page, set: string, line: number): Promise<void> {
+  const key = page.getByTestId(`key-${set}-${line}`);
+  const lamp = key.locator('[data-cadence]');
+  // An idle line is dark; a line picked up on a set lights steady (common practice, no published source).
+  expect(await lamp.getAttribute('data-cadence')).toBe('dark');
+  await key.click();
+  await page.getByTestId(`handset-${set}`).click();
+  await expect.poll(() => lamp.getAttribute('data-cadence'), { timeout: 10_000 }).toBe('steady');
 }
