@@ -78,6 +78,25 @@ describe.skipIf(!chromiumPath)('the plans library', () => {
     await expect.poll(() => page.getByTestId('plans-usage').innerText()).toMatch(/^2 of \d+ plans/);
   });
 
+  it('on a phone keeps plan names on one line and scrolls the table sideways', async () => {
+    await page.setViewportSize({ width: 390, height: 844 });
+    try {
+      await page.goto(`${baseUrl}/plans`);
+      const name = row(FIRST_NAME).getByRole('link', { name: FIRST_NAME, exact: true });
+      await name.waitFor();
+      const box = await name.boundingBox();
+      const lineHeight = await name.evaluate((el) => parseFloat(getComputedStyle(el).lineHeight) || 20);
+      // "Parlour workshop" fits one line at 180 px; a column squeezed to a few letters wraps it over many lines.
+      expect(box!.height).toBeLessThan(lineHeight * 1.5);
+      // The table is wider than the phone, yet the page itself does not scroll sideways: the table does.
+      const tableWidth = await page.locator('table').first().evaluate((el) => el.getBoundingClientRect().width);
+      expect(tableWidth).toBeGreaterThan(390);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    } finally {
+      await page.setViewportSize({ width: 1280, height: 800 });
+    }
+  });
+
   it('finds plans by a server-side search and sorts by name', async () => {
     await page.getByLabel('Search plans').fill('parlour');
     await expectRows(1);

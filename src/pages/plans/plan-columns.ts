@@ -38,6 +38,11 @@ function actionsFor(plan: PlanSummary, scope: PlanScope): DropdownOption[] {
   ];
 }
 
+/** The name column never narrows below this; on a phone the table scrolls sideways instead of wrapping names letter by letter. */
+const NAME_MIN_WIDTH = 180;
+/** Name at its narrowest plus the fixed columns: the width below which the table scrolls. */
+export const PLANS_TABLE_WIDTH = NAME_MIN_WIDTH + 80 + 120 + 160 + 180 + 120;
+
 export function planColumns(
   scope: PlanScope,
   sort: { key: SortKey; order: 'asc' | 'desc' },
@@ -51,6 +56,7 @@ export function planColumns(
     {
       title: 'Name',
       ...sortable('name'),
+      minWidth: NAME_MIN_WIDTH,
       render: (plan) =>
         deleted
           ? plan.name
