@@ -11,6 +11,7 @@ import type { ActiveSession, SessionReader } from '../http/auth.middleware';
 import { HttpError } from '../http/http-error';
 import { toUser, type UsersRepo } from '../users/users.repo';
 import type { SessionsRepo, SessionRow } from './sessions.repo';
+import { deviceName } from './device-name';
 
 export const SESSION_COOKIE = 'leadbench_session';
 /** The `__Host-` prefix makes browsers refuse the cookie unless Secure, host-only and Path=/ (RFC 6265bis §4.1.3.2). */
@@ -120,6 +121,7 @@ export function sessionService(repo: SessionsRepo, users: UsersRepo, policy: Ses
             Math.min(Number(row.expires_at), Number(row.last_used_at) + idleMs),
           ).toISOString(),
           userAgent: row.user_agent,
+          device: deviceName(row.user_agent),
           current: row.id === currentId,
         }));
     },

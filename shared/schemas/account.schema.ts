@@ -18,6 +18,8 @@ export const SessionEntrySchema = z.object({
   lastUsedAt: z.string(),
   expiresAt: z.string(),
   userAgent: z.string(),
+  /** The user agent said shortly: browser, major version and system. */
+  device: z.string(),
   current: z.boolean(),
 });
 export type SessionEntry = z.infer<typeof SessionEntrySchema>;
