@@ -37,40 +37,44 @@ export const LeadChangeSchema = z.discriminatedUnion('kind', [
 ]);
 export type LeadChange = z.infer<typeof LeadChangeSchema>;
 
-export const KeySetSchema = z.object({
-  id: PartIdSchema,
-  name: NameSchema,
-  /** Id of a set template (see templates/). */
-  template: z.string().min(1).max(40),
+/**
+ * A part made from a template (a set, an add-on, a bridging adapter): its id, its name, the id of its template
+ * (see templates/), the fields of its kind, and where it is drawn.
+ */
+function templatePartSchema<Fields extends z.ZodRawShape>(fields: Fields) {
+  return z.object({
+    id: PartIdSchema,
+    name: NameSchema,
+    template: z.string().min(1).max(40),
+    ...fields,
+    position: PositionSchema.optional(),
+  });
+}
+
+/** The restorer's lead changes inside one set or add-on. */
+const LeadChangesSchema = z.array(LeadChangeSchema).max(50).default([]);
+
+export const KeySetSchema = templatePartSchema({
   /** The intercom station this set is meant to answer (id of a KSU intercom station), if any. */
   station: PartIdSchema.optional(),
   /** Line numbers whose incoming ringing this set's ringer is strapped to. */
   ringerLines: z.array(z.number().int().min(1).max(30)).max(30).default([]),
-  leadChanges: z.array(LeadChangeSchema).max(50).default([]),
-  position: PositionSchema.optional(),
+  leadChanges: LeadChangesSchema,
 });
 export type KeySet = z.infer<typeof KeySetSchema>;
 
-export const AddOnSchema = z.object({
-  id: PartIdSchema,
-  name: NameSchema,
-  /** Id of an add-on template, e.g. the hands-free unit. */
-  template: z.string().min(1).max(40),
+/** An add-on (e.g. the hands-free unit). */
+export const AddOnSchema = templatePartSchema({
   /** The set whose private leads this add-on is meant to share. */
   serves: PartIdSchema,
-  leadChanges: z.array(LeadChangeSchema).max(50).default([]),
-  position: PositionSchema.optional(),
+  leadChanges: LeadChangesSchema,
 });
 export type AddOn = z.infer<typeof AddOnSchema>;
 
-export const AdapterSchema = z.object({
-  id: PartIdSchema,
-  name: NameSchema,
-  /** Id of an adapter template, e.g. two jacks and one plug. */
-  template: z.string().min(1).max(40),
+/** A bridging adapter (e.g. two jacks and one plug). */
+export const AdapterSchema = templatePartSchema({
   /** Pairs the adapter parallels between its ports; all 25 when absent. */
   bridgedPairs: z.array(PairNumberSchema).max(25).optional(),
-  position: PositionSchema.optional(),
 });
 export type Adapter = z.infer<typeof AdapterSchema>;
 

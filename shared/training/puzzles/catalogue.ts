@@ -2,18 +2,19 @@
  * The puzzles shipped with Leadbench, in three levels. Every one is checked by `npm run puzzles -- --check`:
  * its faults show at the sets, and its intended repair clears them and keeps the required functions.
  */
-import { ShippedPuzzleSchema, type ShippedPuzzle } from '../puzzle.schema';
+import { ShippedPuzzleSchema, type PuzzleLevel, type PuzzleSpecInput, type ShippedPuzzle } from '../puzzle.schema';
 import { bakeryCounter, boatyard, dentalReception, freightDesk, surveyOffice } from './installations';
 
-const RAW = [
-  // Level 1: one fault, a symptom in the first few states tried.
+/** A puzzle as written here: its level comes from the list it stands in, its attempt limit from the schema's default unless given. */
+type Entry = Omit<PuzzleSpecInput, 'level'> & { slug: string };
+
+// Level 1: one fault, a symptom in the first few states tried.
+const LEVEL_1: Entry[] = [
   {
     slug: 'dark-lamp-front-desk',
     title: 'The lamp that never lights',
     statement:
       'At the survey office the front desk says line 1 never lights on her set, even while the drawing room is talking on it. Find the cause and put it right.',
-    level: 1,
-    attemptLimit: 3,
     plan: surveyOffice(),
     faults: [{ kind: 'lead-wrongly-lifted', part: 'front-desk', pair: 3, conductor: 'tip' }],
     repair: [{ kind: 'restore', part: 'front-desk', pair: 3 }],
@@ -25,8 +26,6 @@ const RAW = [
     title: 'Silence on line 2',
     statement:
       'The drawing room can make calls on lines 1 and 3 but hears nothing at all on line 2, although the lamp comes on. The front desk has no trouble.',
-    level: 1,
-    attemptLimit: 3,
     plan: surveyOffice(),
     faults: [{ kind: 'lead-wrongly-lifted', part: 'drawing-room', pair: 4, conductor: 'both' }],
     repair: [{ kind: 'restore', part: 'drawing-room', pair: 4 }],
@@ -38,8 +37,6 @@ const RAW = [
     title: 'Everyone answers 22',
     statement:
       'Dial 21 on the intercom and both sets at the survey office buzz; dial 22 and nobody does. Nothing else is wrong.',
-    level: 1,
-    attemptLimit: 3,
     plan: surveyOffice(),
     faults: [{ kind: 'cross-connect-wrong', port: 2, pair: 18, lead: { kind: 'buzzer', station: 'st-21' } }],
     repair: [{ kind: 'cross-connect', port: 2, pair: 18, lead: { kind: 'buzzer', station: 'st-22' } }],
@@ -51,8 +48,6 @@ const RAW = [
     title: 'Two dial tones at the back',
     statement:
       'At the dental practice, when reception takes line 1 and the back office takes line 2, each hears two dial tones. Fix it without losing the reception speaker.',
-    level: 1,
-    attemptLimit: 3,
     plan: dentalReception(),
     faults: [{ kind: 'lead-left-on', part: 'back-office', pair: 23 }],
     repair: [{ kind: 'lead', part: 'back-office', change: { kind: 'lift', pair: 23, conductor: 'both' } }],
@@ -64,22 +59,21 @@ const RAW = [
     title: 'Nobody answers 22',
     statement:
       'At the survey office, dialling 22 on the intercom buzzes nobody. Dialling 21 buzzes the front desk as it should, and calls on every line work from both sets.',
-    level: 1,
-    attemptLimit: 3,
     plan: surveyOffice(),
     faults: [{ kind: 'open-conductor', cable: 'drawing-cord', pair: 18, conductor: 'ring', end: 'to' }],
     repair: [{ kind: 'cable-pair', cable: 'drawing-cord', pair: 18 }],
     explanation:
       "The ring of pair 18 (the buzzer return) was broken in the drawing room's cable near the KSU. Station 22's buzzer output reached the set on one conductor only, so the buzzer had no circuit; everything on the other pairs worked. Re-terminating (or replacing) pair 18 restores it.",
   },
-  // Level 2: the symptom needs the right state, or the cause is one step removed.
+];
+
+// Level 2: the symptom needs the right state, or the cause is one step removed.
+const LEVEL_2: Entry[] = [
   {
     slug: 'line-two-will-not-seize',
     title: 'Line 2 lights only for one',
     statement:
       'At the survey office, when the front desk picks up on line 2 the lamp stays dark on both sets and the exchange gives no dial tone; the drawing room can use line 2 normally.',
-    level: 2,
-    attemptLimit: 3,
     plan: surveyOffice(),
     faults: [{ kind: 'lead-wrongly-lifted', part: 'front-desk', pair: 5, conductor: 'tip' }],
     repair: [{ kind: 'restore', part: 'front-desk', pair: 5 }],
@@ -91,8 +85,6 @@ const RAW = [
     title: 'The clerk’s new set',
     statement:
       "The freight desk clerk's set was swapped last week. Since then the dispatcher's lamps for lines 6 to 9 misbehave whenever the clerk is on a call. Find out what changed and cure it with lead work only.",
-    level: 2,
-    attemptLimit: 3,
     plan: freightDesk('six-key'),
     faults: [{ kind: 'wrong-set-fitted', part: 'clerk', template: 'six-key-hf' }],
     repair: [
@@ -108,8 +100,6 @@ const RAW = [
     title: 'Who is 32?',
     statement:
       'At the corner bakery, dialling 31 buzzes the counter and the bakehouse together, and 32 buzzes nobody.',
-    level: 2,
-    attemptLimit: 3,
     plan: bakeryCounter(),
     faults: [{ kind: 'cross-connect-wrong', port: 1, pair: 17, lead: { kind: 'buzzer', station: 'st-31' } }],
     repair: [{ kind: 'cross-connect', port: 1, pair: 17, lead: { kind: 'buzzer', station: 'st-32' } }],
@@ -121,8 +111,6 @@ const RAW = [
     title: 'The workshop answers for the office',
     statement:
       "At the boatyard, calls to intercom 61 buzz the office and the workshop, and 63 buzzes nobody. The workshop's cable was unplugged during painting.",
-    level: 2,
-    attemptLimit: 3,
     plan: boatyard(),
     faults: [{ kind: 'cable-wrong-port', cable: 'workshop-cord', end: 'to', part: 'adapter', port: 'jack-3' }],
     repair: [{ kind: 'replug', cable: 'workshop-cord', end: 'to', part: 'ksu', port: 'port-2' }],
@@ -134,22 +122,21 @@ const RAW = [
     title: 'Line 1 never lights',
     statement:
       'At the corner bakery line 1 works for calls on both sets, but its lamp stays dark on the counter and in the bakehouse, even during a call. Lines 2 and 3 light normally.',
-    level: 2,
-    attemptLimit: 3,
     plan: bakeryCounter(),
     faults: [{ kind: 'reversed-pair', cable: 'counter-cord', pair: 3, end: 'from' }],
     repair: [{ kind: 'cable-pair', cable: 'counter-cord', pair: 3 }],
     explanation:
       "Tip and ring of pair 3 (line 1's lamp lead L and lamp ground LG) were swapped where the counter's cord was terminated. The set's lamps share one lamp ground, so the swap put the KSU's lamp lead for line 1 straight onto ground: no line 1 lamp anywhere on the cable. Re-terminating pair 3 the right way round cures it.",
   },
-  // Level 3: two faults, or a fault that shows only in a combined state.
+];
+
+// Level 3: two faults, or a fault that shows only in a combined state.
+const LEVEL_3: Entry[] = [
   {
     slug: 'back-office-two-faults',
     title: 'Crossed talk and a dead buzzer',
     statement:
       'At the dental practice two things went wrong after a rewiring: reception and the back office sometimes hear each other’s lines, and the back office never buzzes on the intercom.',
-    level: 3,
-    attemptLimit: 3,
     plan: dentalReception(),
     faults: [
       { kind: 'lead-left-on', part: 'back-office', pair: 23 },
@@ -167,8 +154,6 @@ const RAW = [
     title: 'The wrong pair lifted',
     statement:
       'Reception complains that the speaker no longer reaches the line, and that the back office can be heard on reception’s lines.',
-    level: 3,
-    attemptLimit: 3,
     plan: dentalReception(),
     faults: [
       { kind: 'lead-wrongly-lifted', part: 'reception', pair: 23, conductor: 'both' },
@@ -186,7 +171,6 @@ const RAW = [
     title: 'Line 9 lights by itself',
     statement:
       "At the freight desk, line 9 on the dispatcher's set lights whenever the clerk lifts the handset, whichever line the clerk uses.",
-    level: 3,
     attemptLimit: 2,
     plan: freightDesk('six-key-hf'),
     faults: [{ kind: 'lead-left-on', part: 'clerk', pair: 25 }],
@@ -199,8 +183,6 @@ const RAW = [
     title: 'A busy morning at the boatyard',
     statement:
       'After painting, the workshop buzzes with the office and the chandlery has no lamp on line 2. Find every cause.',
-    level: 3,
-    attemptLimit: 3,
     plan: boatyard(),
     faults: [
       { kind: 'cable-wrong-port', cable: 'workshop-cord', end: 'to', part: 'adapter', port: 'jack-3' },
@@ -218,8 +200,6 @@ const RAW = [
     title: 'Crossed at the counter',
     statement:
       'At the corner bakery the bakehouse never buzzes, and the counter has no talk on line 3.',
-    level: 3,
-    attemptLimit: 3,
     plan: bakeryCounter(),
     faults: [
       { kind: 'cross-connect-wrong', port: 1, pair: 17, lead: null },
@@ -237,7 +217,6 @@ const RAW = [
     title: 'Two dead lines at the front desk',
     statement:
       'At the survey office the front desk gets no dial tone on line 1 or line 2, though both lamps come on when she takes them. The drawing room uses both lines normally; the front desk cord was re-made last week.',
-    level: 3,
     attemptLimit: 2,
     plan: surveyOffice(),
     faults: [{ kind: 'split-pair', cable: 'front-cord', pair: 1, withPair: 4, conductor: 'tip', end: 'from' }],
@@ -247,4 +226,11 @@ const RAW = [
   },
 ];
 
-export const SHIPPED_PUZZLES: readonly ShippedPuzzle[] = RAW.map((p) => ShippedPuzzleSchema.parse(p));
+const inLevel = (level: PuzzleLevel, entries: Entry[]): ShippedPuzzle[] =>
+  entries.map((p) => ShippedPuzzleSchema.parse({ ...p, level }));
+
+export const SHIPPED_PUZZLES: readonly ShippedPuzzle[] = [
+  ...inLevel(1, LEVEL_1),
+  ...inLevel(2, LEVEL_2),
+  ...inLevel(3, LEVEL_3),
+];

@@ -3,15 +3,30 @@
  * All premises, names and numbers are invented.
  */
 import {
+  BUZZER_PAIR,
+  HANDS_FREE_PAIRS,
+  SPARE_PAIR,
   standardCrossConnect,
   type AddOn,
-  type Adapter,
   type Cable,
   type CrossConnect,
   type KeySet,
+  type LeadChange,
   type Plan,
   type Station,
 } from '../../engine/index';
+
+/** The station port that sets share through the installation's bridging adapter. */
+const SHARED_PORT = 1;
+
+type SetInput = Omit<KeySet, 'ringerLines' | 'leadChanges'> &
+  Partial<Pick<KeySet, 'ringerLines' | 'leadChanges'>> & {
+    /**
+     * A second set on the shared cable: its buzzer lead moved from pair 18 to the spare pair, where the KSU
+     * straps its station's buzzer output on the shared port.
+     */
+    buzzerOnSparePair?: boolean;
+  };
 
 interface InstallationInput {
   name: string;
@@ -21,14 +36,25 @@ interface InstallationInput {
   exchange: string;
   stations: Station[];
   ports: number;
-  sets: (Omit<KeySet, 'ringerLines' | 'leadChanges'> & Partial<Pick<KeySet, 'ringerLines' | 'leadChanges'>>)[];
+  sets: SetInput[];
   addOns?: AddOn[];
-  adapters?: Adapter[];
+  /** Template of the bridging adapter plugged into the shared port by 'station-cable', if sets share one. */
+  adapter?: 'bridging-adapter' | 'bridging-adapter-4';
+  /** Cables besides the station cable. */
   cables: Cable[];
-  /** Cross-connect entries added to (or replacing) the standard station plan. */
-  extraCrossConnect?: CrossConnect[];
   handsFreeSets?: string[];
 }
+
+const cable = (id: string, from: string, fromPort: string, to: string, toPort: string): Cable => ({
+  id,
+  from: { part: from, port: fromPort },
+  to: { part: to, port: toPort },
+});
+const station = (code: string, label: string): Station => ({ id: `st-${code}`, code, label });
+const movedBuzzer = (): LeadChange => ({ kind: 'move', pair: BUZZER_PAIR, toPair: SPARE_PAIR });
+/** A hands-free set used without its add-on: its private pairs lifted. */
+const privatePairsLifted = (): LeadChange[] =>
+  Object.values(HANDS_FREE_PAIRS).map((pair) => ({ kind: 'lift', pair, conductor: 'both' }));
 
 export function installation(input: InstallationInput): Plan {
   const ksu = {
@@ -43,7 +69,11 @@ export function installation(input: InstallationInput): Plan {
     ports: input.ports,
     position: { x: 0, y: 0 },
   };
-  const extra = input.extraCrossConnect ?? [];
+  const extra: CrossConnect[] = input.sets.flatMap((s) =>
+    s.buzzerOnSparePair && s.station
+      ? [{ port: SHARED_PORT, pair: SPARE_PAIR, lead: { kind: 'buzzer', station: s.station } }]
+      : [],
+  );
   const crossConnect = extra.length
     ? [
         ...standardCrossConnect(ksu).filter((c) => !extra.some((e) => e.port === c.port && e.pair === c.pair)),
@@ -55,30 +85,22 @@ export function installation(input: InstallationInput): Plan {
     name: input.name,
     description: input.description,
     ksu: crossConnect ? { ...ksu, crossConnect } : ksu,
-    sets: input.sets.map((s, i) => ({
+    sets: input.sets.map(({ buzzerOnSparePair, leadChanges = [], ...s }, i) => ({
       ringerLines: [],
-      leadChanges: [],
+      leadChanges: buzzerOnSparePair ? [movedBuzzer(), ...leadChanges] : leadChanges,
       position: { x: 520, y: -160 + i * 200 },
       ...s,
     })),
     addOns: input.addOns ?? [],
-    adapters: input.adapters ?? [],
-    cables: input.cables,
+    adapters: input.adapter
+      ? [{ id: 'adapter', name: 'Bridging adapter', template: input.adapter, position: { x: 260, y: 0 } }]
+      : [],
+    cables: input.adapter
+      ? [cable('station-cable', 'adapter', 'plug', 'ksu', `port-${SHARED_PORT}`), ...input.cables]
+      : input.cables,
     required: { allLinesOnEverySet: true, intercomPerStation: true, handsFreeSets: input.handsFreeSets ?? [] },
   };
 }
-
-const cable = (id: string, from: string, fromPort: string, to: string, toPort: string): Cable => ({
-  id,
-  from: { part: from, port: fromPort },
-  to: { part: to, port: toPort },
-});
-const adapter = (id = 'adapter', template = 'bridging-adapter'): Adapter => ({
-  id,
-  name: 'Bridging adapter',
-  template,
-  position: { x: 260, y: 0 },
-});
 
 /** Two six-key sets, each on its own KSU port, each answering its own station. */
 export const surveyOffice = (): Plan =>
@@ -87,11 +109,7 @@ export const surveyOffice = (): Plan =>
     description: 'A land survey office: the front desk and the drawing room, each on its own station cable.',
     lines: ['Main', 'Field crews', 'Fax'],
     exchange: '555',
-    stations: [
-      { id: 'st-21', code: '21', label: 'Front desk' },
-      { id: 'st-22', code: '22', label: 'Drawing room' },
-      { id: 'st-23', code: '23', label: 'Store' },
-    ],
+    stations: [station('21', 'Front desk'), station('22', 'Drawing room'), station('23', 'Store')],
     ports: 3,
     sets: [
       { id: 'front-desk', name: 'Front desk', template: 'six-key', station: 'st-21', ringerLines: [1, 2] },
@@ -110,29 +128,17 @@ export const bakeryCounter = (): Plan =>
     description: 'The shop counter and the bakehouse share one station cable through a bridging adapter.',
     lines: ['Shop', 'Orders', 'Owner'],
     exchange: '556',
-    stations: [
-      { id: 'st-31', code: '31', label: 'Counter' },
-      { id: 'st-32', code: '32', label: 'Bakehouse' },
-    ],
+    stations: [station('31', 'Counter'), station('32', 'Bakehouse')],
     ports: 1,
     sets: [
       { id: 'counter', name: 'Counter', template: 'six-key', station: 'st-31', ringerLines: [1, 2] },
-      {
-        id: 'bakehouse',
-        name: 'Bakehouse',
-        template: 'six-key',
-        station: 'st-32',
-        ringerLines: [2],
-        leadChanges: [{ kind: 'move', pair: 18, toPair: 17 }],
-      },
+      { id: 'bakehouse', name: 'Bakehouse', template: 'six-key', station: 'st-32', ringerLines: [2], buzzerOnSparePair: true },
     ],
-    adapters: [adapter()],
+    adapter: 'bridging-adapter',
     cables: [
-      cable('station-cable', 'adapter', 'plug', 'ksu', 'port-1'),
       cable('counter-cord', 'counter', 'cord', 'adapter', 'jack-1'),
       cable('bakehouse-cord', 'bakehouse', 'cord', 'adapter', 'jack-2'),
     ],
-    extraCrossConnect: [{ port: 1, pair: 17, lead: { kind: 'buzzer', station: 'st-32' } }],
   });
 
 /**
@@ -146,10 +152,7 @@ export const dentalReception = (): Plan =>
       'Reception has a hands-free add-on; the back office set is the same model, so its private pairs were lifted.',
     lines: ['Appointments', 'Surgery', 'Laboratory', 'Billing'],
     exchange: '557',
-    stations: [
-      { id: 'st-41', code: '41', label: 'Reception' },
-      { id: 'st-42', code: '42', label: 'Back office' },
-    ],
+    stations: [station('41', 'Reception'), station('42', 'Back office')],
     ports: 1,
     sets: [
       { id: 'reception', name: 'Reception', template: 'six-key-hf', station: 'st-41', ringerLines: [1] },
@@ -159,25 +162,19 @@ export const dentalReception = (): Plan =>
         template: 'six-key-hf',
         station: 'st-42',
         ringerLines: [4],
-        leadChanges: [
-          { kind: 'move', pair: 18, toPair: 17 },
-          { kind: 'lift', pair: 23, conductor: 'both' },
-          { kind: 'lift', pair: 24, conductor: 'both' },
-          { kind: 'lift', pair: 25, conductor: 'both' },
-        ],
+        buzzerOnSparePair: true,
+        leadChanges: privatePairsLifted(),
       },
     ],
     addOns: [
       { id: 'reception-speaker', name: 'Reception speaker', template: 'hands-free-unit', serves: 'reception', leadChanges: [], position: { x: 260, y: -200 } },
     ],
-    adapters: [adapter()],
+    adapter: 'bridging-adapter',
     cables: [
-      cable('station-cable', 'adapter', 'plug', 'ksu', 'port-1'),
       cable('speaker-cord', 'reception-speaker', 'cord', 'adapter', 'jack-1'),
       cable('reception-cord', 'reception', 'cord', 'reception-speaker', 'set'),
       cable('back-cord', 'back-office', 'cord', 'adapter', 'jack-2'),
     ],
-    extraCrossConnect: [{ port: 1, pair: 17, lead: { kind: 'buzzer', station: 'st-42' } }],
     handsFreeSets: ['reception'],
   });
 
@@ -188,10 +185,7 @@ export const freightDesk = (template: 'six-key' | 'six-key-hf' = 'six-key'): Pla
     description: 'The dispatcher has a ten-key set for all nine lines; the clerk beside her has a six-key set.',
     lines: ['Dispatch', 'Harbour', 'Rail', 'Road', 'Customs', 'Night', 'Agents', 'Claims', 'Manager'],
     exchange: '558',
-    stations: [
-      { id: 'st-51', code: '51', label: 'Dispatcher' },
-      { id: 'st-52', code: '52', label: 'Clerk' },
-    ],
+    stations: [station('51', 'Dispatcher'), station('52', 'Clerk')],
     ports: 1,
     sets: [
       { id: 'dispatcher', name: 'Dispatcher', template: 'ten-key', station: 'st-51', ringerLines: [1, 6] },
@@ -201,21 +195,15 @@ export const freightDesk = (template: 'six-key' | 'six-key-hf' = 'six-key'): Pla
         template,
         station: 'st-52',
         ringerLines: [2],
-        leadChanges: [
-          { kind: 'move', pair: 18, toPair: 17 },
-          ...(template === 'six-key-hf'
-            ? ([23, 24, 25] as const).map((pair) => ({ kind: 'lift' as const, pair, conductor: 'both' as const }))
-            : []),
-        ],
+        buzzerOnSparePair: true,
+        leadChanges: template === 'six-key-hf' ? privatePairsLifted() : [],
       },
     ],
-    adapters: [adapter()],
+    adapter: 'bridging-adapter',
     cables: [
-      cable('station-cable', 'adapter', 'plug', 'ksu', 'port-1'),
       cable('dispatcher-cord', 'dispatcher', 'cord', 'adapter', 'jack-1'),
       cable('clerk-cord', 'clerk', 'cord', 'adapter', 'jack-2'),
     ],
-    extraCrossConnect: [{ port: 1, pair: 17, lead: { kind: 'buzzer', station: 'st-52' } }],
   });
 
 /** Three six-key sets: two share port 1 through a four-jack adapter, the workshop has port 2 to itself. */
@@ -225,30 +213,17 @@ export const boatyard = (): Plan =>
     description: 'Office and chandlery share a cable through a four-jack adapter; the workshop has its own port.',
     lines: ['Yard', 'Chandlery', 'Moorings'],
     exchange: '559',
-    stations: [
-      { id: 'st-61', code: '61', label: 'Office' },
-      { id: 'st-63', code: '63', label: 'Workshop' },
-      { id: 'st-62', code: '62', label: 'Chandlery' },
-    ],
+    stations: [station('61', 'Office'), station('63', 'Workshop'), station('62', 'Chandlery')],
     ports: 2,
     sets: [
       { id: 'office', name: 'Office', template: 'six-key', station: 'st-61', ringerLines: [1] },
-      {
-        id: 'chandlery',
-        name: 'Chandlery',
-        template: 'six-key',
-        station: 'st-62',
-        ringerLines: [2],
-        leadChanges: [{ kind: 'move', pair: 18, toPair: 17 }],
-      },
+      { id: 'chandlery', name: 'Chandlery', template: 'six-key', station: 'st-62', ringerLines: [2], buzzerOnSparePair: true },
       { id: 'workshop', name: 'Workshop', template: 'six-key', station: 'st-63', ringerLines: [3] },
     ],
-    adapters: [adapter('adapter', 'bridging-adapter-4')],
+    adapter: 'bridging-adapter-4',
     cables: [
-      cable('station-cable', 'adapter', 'plug', 'ksu', 'port-1'),
       cable('office-cord', 'office', 'cord', 'adapter', 'jack-1'),
       cable('chandlery-cord', 'chandlery', 'cord', 'adapter', 'jack-2'),
       cable('workshop-cord', 'workshop', 'cord', 'ksu', 'port-2'),
     ],
-    extraCrossConnect: [{ port: 1, pair: 17, lead: { kind: 'buzzer', station: 'st-62' } }],
   });
