@@ -80,6 +80,28 @@ export interface PuzzleCheck {
   symptoms: string[];
 }
 
+/** Canonical JSON (keys sorted at every level), so two steps written with their fields in another order still match. */
+function canonical(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`;
+  if (value && typeof value === 'object')
+    return `{${Object.keys(value)
+      .sort()
+      .map((k) => `${JSON.stringify(k)}:${canonical((value as Record<string, unknown>)[k])}`)
+      .join(',')}}`;
+  return JSON.stringify(value);
+}
+
+/** The index of the first repair step that repeats an earlier one, or null. A repeated step is a slip in the data. */
+function repeatedStep(repair: readonly unknown[]): number | null {
+  const seen = new Set<string>();
+  for (const step of repair) {
+    const key = canonical(step);
+    if (seen.has(key)) return repair.findIndex((s) => canonical(s) === key);
+    seen.add(key);
+  }
+  return null;
+}
+
 /** Everything a shipped or saved puzzle must satisfy. */
 export function checkPuzzle(spec: PuzzleSpec): PuzzleCheck {
   const problems: string[] = [];
@@ -96,6 +118,8 @@ export function checkPuzzle(spec: PuzzleSpec): PuzzleCheck {
   faultProbes.forEach((names, i) => {
     if (!names.length) problems.push(`Fault ${i + 1} on its own shows no symptom at the sets`);
   });
+  const twice = repeatedStep(spec.repair);
+  if (twice !== null) problems.push(`The intended repair lists step ${twice + 1} twice`);
   const repaired = applyRepair(faulty, spec.repair);
   if (!repaired.ok) problems.push(`The intended repair does not apply: ${repaired.problem}`);
   else {

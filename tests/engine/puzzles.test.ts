@@ -62,7 +62,7 @@ describe('sightings', () => {
 });
 
 describe('the checker', () => {
-  it('rejects a fault nobody can see, a repair that does not cure, and a fault that does not fit', () => {
+  it('rejects a fault nobody can see, a repair that does not cure, a repair step given twice, and a fault that does not fit', () => {
     const spec = shipped('dark-lamp-front-desk');
     const invisible = checkPuzzle({
       ...spec,
@@ -73,6 +73,10 @@ describe('the checker', () => {
 
     const noCure = checkPuzzle({ ...spec, repair: [{ kind: 'restore', part: 'drawing-room', pair: 3 }] });
     expect(noCure.problems.join(' ')).toMatch(/does not clear fault 1/);
+
+    const step = spec.repair[0]!;
+    const repeated = checkPuzzle({ ...spec, repair: [...spec.repair, { ...step }] });
+    expect(repeated.problems).toContain('The intended repair lists step 1 twice');
 
     const unfit = checkPuzzle({ ...spec, faults: [{ kind: 'lead-left-on', part: 'front-desk', pair: 3 }] });
     expect(unfit.problems.join(' ')).toMatch(/no lifted lead on pair 3/);

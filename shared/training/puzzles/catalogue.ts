@@ -89,7 +89,7 @@ const LEVEL_2: Entry[] = [
     faults: [{ kind: 'wrong-set-fitted', part: 'clerk', template: 'six-key-hf' }],
     repair: [
       { kind: 'lead', part: 'clerk', change: { kind: 'lift', pair: 23, conductor: 'both' } },
-      { kind: 'lead', part: 'clerk', change: { kind: 'lift', pair: 25, conductor: 'both' } },
+      { kind: 'lead', part: 'clerk', change: { kind: 'lift', pair: 24, conductor: 'both' } },
       { kind: 'lead', part: 'clerk', change: { kind: 'lift', pair: 25, conductor: 'both' } },
     ],
     explanation:
