@@ -86,6 +86,25 @@ describe.skipIf(!chromiumPath)('accounts and roles in the browser', () => {
     });
   }
 
+  it('on a phone folds the areas into one menu that names the current one and reaches every area', async () => {
+    session = await openBrowser(chromiumPath, { width: 390, height: 844 });
+    const { page } = session;
+    const errors = collectPageErrors(page);
+    await signIn(page, baseUrl, DEMO_ACCOUNTS.admin);
+    await waitForPath(page, '/people');
+    const fold = page.getByTestId('nav-fold');
+    await expect.poll(() => fold.innerText()).toBe('People');
+    // Nothing in the top bar runs past the screen's edge.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await fold.click();
+    const options = page.locator('.n-dropdown-option:visible');
+    await expect.poll(() => options.allInnerTexts()).toEqual(ROLE_EXPECTATIONS.admin.nav);
+    await options.filter({ hasText: 'Drills' }).click();
+    await waitForPath(page, '/drills');
+    await expect.poll(() => fold.innerText()).toBe('Drills');
+    expect(errors).toEqual([]);
+  });
+
   it('keeps a restorer out of People even by typing its address', async () => {
     session = await openBrowser(chromiumPath);
     const { page } = session;
