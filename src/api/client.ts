@@ -27,6 +27,14 @@ export class ApiError extends Error {
   }
 }
 
+/**
+ * The data-loading kit's retry rule for every query: a refusal (4xx: not signed in, no right, not found, bad
+ * input) is final and shown at once; a server or network failure is tried twice more.
+ */
+export function retryUnlessRefused(failures: number, error: unknown): boolean {
+  return !(error instanceof ApiError && error.status >= 400 && error.status < 500) && failures < 2;
+}
+
 export type HttpMethod = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
 type UnauthenticatedHandler = (error: ApiError) => void;

@@ -17,12 +17,12 @@ export function createBrowserRouter(app: App, pinia: Pinia) {
   router.beforeEach(async (to) => {
     if (watching || to.meta.light) return;
     watching = true;
-    const [{ setUnauthenticatedHandler }, { useSessionStore }, { VueQueryPlugin }] = await Promise.all([
+    const [{ setUnauthenticatedHandler, retryUnlessRefused }, { useSessionStore }, { VueQueryPlugin }] = await Promise.all([
       import('@/api/client'),
       import('@/stores/session.store'),
       import('@tanstack/vue-query'),
     ]);
-    app.use(VueQueryPlugin);
+    app.use(VueQueryPlugin, { queryClientConfig: { defaultOptions: { queries: { retry: retryUnlessRefused } } } });
     setUnauthenticatedHandler(() => {
       const session = useSessionStore(pinia);
       const current = router.currentRoute.value;

@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { z } from 'zod';
-import { ApiError, request, setUnauthenticatedHandler, toQuery } from '@/api/client';
+import { ApiError, request, retryUnlessRefused, setUnauthenticatedHandler, toQuery } from '@/api/client';
 
 function answer(status: number, body: unknown, raw = false): Response {
   return new Response(raw ? String(body) : JSON.stringify(body), {
@@ -141,5 +141,17 @@ describe('setUnauthenticatedHandler', () => {
     await failure(request('POST', '/api/auth/sign-in', ThingSchema, {}));
 
     expect(handler).not.toHaveBeenCalled();
+  });
+});
+
+describe('retryUnlessRefused', () => {
+  it('shows a refusal at once and tries a server or network failure twice more', () => {
+    // HTTP semantics (RFC 9110 §15.5, §15.6): 4xx says the request itself will not succeed as sent; 5xx may pass.
+    const refused = new ApiError(403, 'SECOND_FACTOR_REQUIRED', 'Set up an authenticator app first.');
+    expect(retryUnlessRefused(0, refused)).toBe(false);
+    expect(retryUnlessRefused(0, new ApiError(404, 'NOT_FOUND', 'No such plan.'))).toBe(false);
+    const broken = new ApiError(503, 'INTERNAL', 'Try again later.');
+    expect([0, 1, 2].map((n) => retryUnlessRefused(n, broken))).toEqual([true, true, false]);
+    expect(retryUnlessRefused(0, new TypeError('Failed to fetch'))).toBe(true);
   });
 });

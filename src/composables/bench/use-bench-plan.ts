@@ -8,7 +8,6 @@ import { useQuery, useQueryClient } from '@tanstack/vue-query';
 import type { Plan } from '@shared/engine/documents';
 import type { PlanRecord } from '@shared/schemas';
 import { plansApi } from '@/api/plans';
-import { ApiError } from '@/api/client';
 import { demoPlan } from '@/plans/plan-starters';
 import { useBenchStore } from '@/stores/bench.store';
 import { PLANS_KEY } from '@/composables/use-plan-library';
@@ -74,7 +73,6 @@ async function fetchOpened(source: BenchSource, guestPlan: Plan | null): Promise
 }
 
 /** Answers that another try cannot change (not found, not allowed, bad request). */
-const final = (error: unknown) => error instanceof ApiError && error.status >= 400 && error.status < 500;
 
 export function useBenchPlan(source: BenchSource) {
   const store = useBenchStore();
@@ -91,7 +89,6 @@ export function useBenchPlan(source: BenchSource) {
     queryFn: () => fetchOpened(source, guestPlan.value),
     // A refetch while the user draws must not pull the drawing from under them; saves update the cache instead.
     refetchOnWindowFocus: false,
-    retry: (count, error) => !final(error) && count < 2,
   });
 
   /**
