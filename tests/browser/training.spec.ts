@@ -182,6 +182,19 @@ describe.skipIf(!chromiumPath)('training: classes, a fault hunt, the gradebook a
     await page.getByRole('button', { name: 'Present' }).first().click();
     await page.getByTestId('projector-step').waitFor();
     expect(await page.getByTestId('projector-step').innerText()).toBe('Step 1 of 5');
+    // The framing shows at least one set whole inside the stage, and the narration is not covered by the drawing.
+    const inside = async () =>
+      page.evaluate(() => {
+        const stage = document.querySelector('.projector__stage')!.getBoundingClientRect();
+        const narration = document.querySelector('[data-testid="projector-narration"]')!.getBoundingClientRect();
+        const whole = [...document.querySelectorAll('.vue-flow__node-set')].filter((el) => {
+          const box = el.getBoundingClientRect();
+          return box.left >= stage.left && box.right <= stage.right && box.top >= stage.top && box.bottom <= stage.bottom;
+        });
+        return { wholeSets: whole.length, clearOfNarration: stage.bottom <= narration.top + 1 };
+      });
+    await expect.poll(async () => (await inside()).wholeSets).toBeGreaterThanOrEqual(1);
+    expect((await inside()).clearOfNarration).toBe(true);
     await page.keyboard.press('ArrowRight');
     await page.keyboard.press('PageDown');
     await page.keyboard.press('ArrowRight');
