@@ -65,7 +65,18 @@ export const PAGE_KEYS: KeyGroup<PageCommand> = {
   ],
 };
 
-export type PartCommand = 'next' | 'previous' | 'first' | 'last' | 'open' | 'select' | 'move';
+/** A walk along an ordered strip (the drawing's parts, the panel tabs), wrapping round at the ends. */
+export type StepCommand = 'next' | 'previous' | 'first' | 'last';
+
+/** Where a step from `index` lands in a strip of `length` items. */
+export function stepTo(length: number, index: number, to: StepCommand): number {
+  const last = length - 1;
+  if (to === 'next') return index === last ? 0 : index + 1;
+  if (to === 'previous') return index === 0 ? last : index - 1;
+  return to === 'first' ? 0 : last;
+}
+
+export type PartCommand = StepCommand | 'open' | 'select' | 'move';
 
 /**
  * On a part of the drawing (BenchDrawing.vue). The drawing is one tab stop; Space and Shift+arrows are
@@ -113,12 +124,24 @@ export const OPERATING_PANEL_KEYS: KeyGroup<OperatingPanelCommand> = {
   ],
 };
 
+/** On the tabs beside the drawing (BenchSidePanels.vue), the usual tab strip keys. */
+export const PANEL_TAB_KEYS: KeyGroup<StepCommand> = {
+  where: 'On the panel tabs (Findings, Lead card, …)',
+  rows: [
+    { command: 'next', chords: [{ key: 'ArrowRight' }], does: 'Show the next panel' },
+    { command: 'previous', chords: [{ key: 'ArrowLeft' }], does: 'Show the previous panel' },
+    { command: 'first', chords: [{ key: 'Home' }], does: 'Show the first panel' },
+    { command: 'last', chords: [{ key: 'End' }], does: 'Show the last panel' },
+  ],
+};
+
 /** Every group, in the order the help lists them. */
 export const KEY_GROUPS: readonly KeyGroup<string>[] = [
   PAGE_KEYS,
   PART_KEYS,
   INSIDE_PART_KEYS,
   OPERATING_PANEL_KEYS,
+  PANEL_TAB_KEYS,
 ];
 
 function matches(chord: Chord, press: KeyPress): boolean {

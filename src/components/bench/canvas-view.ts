@@ -5,6 +5,7 @@
  */
 import { computed, reactive } from 'vue';
 import type { Plan } from '@shared/engine';
+import { stepTo, type StepCommand } from './bench-keys';
 
 /** Node text is at least 12 px: at this zoom and above it renders at 11 px or more (WCAG 1.4.4 practice). */
 export const DETAIL_ZOOM = 0.92;
@@ -65,16 +66,8 @@ export function currentStop(plan: Plan): string | null {
   return (order.find((p) => p.kind === 'set') ?? order[0])?.id ?? null;
 }
 
-/** Where the next, previous, first or last part key (PART_KEYS) moves the tab stop from `from`. */
-export function nextStop(
-  order: readonly PartStop[],
-  from: string,
-  to: 'next' | 'previous' | 'first' | 'last',
-): string | null {
+/** Where a step key of the drawing (PART_KEYS) moves the tab stop from `from`. */
+export function nextStop(order: readonly PartStop[], from: string, to: StepCommand): string | null {
   const i = order.findIndex((p) => p.id === from);
-  if (i < 0 || !order.length) return null;
-  const last = order.length - 1;
-  if (to === 'next') return order[i === last ? 0 : i + 1].id;
-  if (to === 'previous') return order[i === 0 ? last : i - 1].id;
-  return to === 'first' ? order[0].id : order[last].id;
+  return i < 0 ? null : order[stepTo(order.length, i, to)].id;
 }

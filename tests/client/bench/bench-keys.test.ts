@@ -13,7 +13,9 @@ import {
   keysLabel,
   OPERATING_PANEL_KEYS,
   PAGE_KEYS,
+  PANEL_TAB_KEYS,
   PART_KEYS,
+  stepTo,
   type KeyPress,
 } from '@/components/bench/bench-keys';
 import { nextStop, type PartStop } from '@/components/bench/canvas-view';
@@ -78,6 +80,16 @@ describe('drawing keys', () => {
     expect(commandFor(INSIDE_PART_KEYS, press('ArrowUp', { ctrlKey: true, altKey: true }))).toBe('stay');
     expect(commandFor(INSIDE_PART_KEYS, press('Enter'))).toBeNull();
     expect(commandFor(OPERATING_PANEL_KEYS, press('Escape', { ctrlKey: true }))).toBe('close');
+  });
+
+  it('walk the panel tabs with the left and right arrows, Home and End, wrapping round', () => {
+    expect(commandFor(PANEL_TAB_KEYS, press('ArrowRight'))).toBe('next');
+    expect(commandFor(PANEL_TAB_KEYS, press('ArrowLeft', { shiftKey: true }))).toBe('previous');
+    expect(commandFor(PANEL_TAB_KEYS, press('ArrowDown'))).toBeNull();
+    expect(stepTo(5, 4, 'next')).toBe(0);
+    expect(stepTo(5, 0, 'previous')).toBe(4);
+    expect(stepTo(5, 2, 'first')).toBe(0);
+    expect(stepTo(5, 2, 'last')).toBe(4);
   });
 
   it('move the tab stop round the reading order', () => {
