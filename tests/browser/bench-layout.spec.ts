@@ -204,6 +204,7 @@ describe.skipIf(!chromiumPath)('the Bench layouts, keyboard path and legibility'
         .getByText(does)
         .waitFor();
     }
+    await screenshot(page, 'layout-shortcut-help');
     await page.keyboard.press('Escape');
     await help.waitFor({ state: 'detached' });
 
