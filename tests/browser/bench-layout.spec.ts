@@ -184,6 +184,43 @@ describe.skipIf(!chromiumPath)('the Bench layouts, keyboard path and legibility'
     expect(await focused()).toBe('node-front-counter');
   });
 
+  it('by keyboard: the help lists the drawing keys, and Space then Shift+arrows move a part as it says', async () => {
+    const page = await openDemo({ width: 1280, height: 800 });
+    const part = page.locator('[data-part-stop="workroom"]');
+    await part.focus();
+    await page.keyboard.press('?');
+    const help = page.getByTestId('shortcut-help');
+    await help.waitFor();
+    // The help's words for the drawing's keys (the Bench's own, src/components/bench/bench-keys.ts).
+    for (const row of [
+      'Right arrow or Down arrow | Go to the next part',
+      'Space | Select the part (its Lead card shows it)',
+      'Shift+Arrow keys | Move the selected part (each step can be undone)',
+      'Escape | Close it and go back to the set on the drawing',
+    ]) {
+      const [keys, does] = row.split(' | ');
+      await help
+        .locator('tr', { has: page.locator('kbd', { hasText: keys }) })
+        .getByText(does)
+        .waitFor();
+    }
+    await screenshot(page, 'layout-shortcut-help');
+    // Level "serious" and "critical" are axe-core's own impact ratings (axe-core rule descriptions). The kit's
+    // card header (role "heading" with no aria-level) is every card dialog's, not this list's: judged apart.
+    expect(await seriousViolations(page, ['.n-card-header'])).toEqual([]);
+    await page.keyboard.press('Escape');
+    await help.waitFor({ state: 'detached' });
+
+    await part.focus();
+    await page.keyboard.press(' ');
+    await expect.poll(() => part.getAttribute('class')).toContain('lb-node--selected');
+    const left = async () => (await part.boundingBox())?.x ?? Number.NaN;
+    const before = await left();
+    await page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(left).toBeGreaterThan(before);
+    await expect.poll(() => page.getByTestId('undo').getAttribute('aria-label')).toBe('Undo: Move Workroom');
+  });
+
   it('at 1280×800 and the default fit every canvas label renders at 11 px or more and every key is 24×24 or more', async () => {
     const page = await openDemo({ width: 1280, height: 800 });
     const zoom = await settledZoom(page);

@@ -5,6 +5,7 @@
  */
 import { computed, reactive } from 'vue';
 import type { Plan } from '@shared/engine';
+import { stepTo, type StepCommand } from './bench-keys';
 
 /** Node text is at least 12 px: at this zoom and above it renders at 11 px or more (WCAG 1.4.4 practice). */
 export const DETAIL_ZOOM = 0.92;
@@ -65,25 +66,8 @@ export function currentStop(plan: Plan): string | null {
   return (order.find((p) => p.kind === 'set') ?? order[0])?.id ?? null;
 }
 
-/** Where an arrow, Home or End key moves the tab stop from `from`; null for any other key. */
-export function nextStop(order: readonly PartStop[], from: string, key: string): string | null {
+/** Where a step key of the drawing (PART_KEYS) moves the tab stop from `from`. */
+export function nextStop(order: readonly PartStop[], from: string, to: StepCommand): string | null {
   const i = order.findIndex((p) => p.id === from);
-  if (i < 0 || !order.length) return null;
-  const last = order.length - 1;
-  if (key === 'ArrowRight' || key === 'ArrowDown') return order[i === last ? 0 : i + 1].id;
-  if (key === 'ArrowLeft' || key === 'ArrowUp') return order[i === 0 ? last : i - 1].id;
-  if (key === 'Home') return order[0].id;
-  if (key === 'End') return order[last].id;
-  return null;
+  return i < 0 ? null : order[stepTo(order.length, i, to)].id;
 }
-
-/** Keys of the drawing, for the help dialog. */
-export const CANVAS_KEYS: readonly { keys: string; does: string }[] = [
-  { keys: 'Tab', does: 'Enter the drawing on one part (the drawing is one tab stop)' },
-  { keys: 'Arrow keys, Home, End', does: 'Go to the next or previous part' },
-  { keys: 'Enter on a set', does: 'Open it: zoom to it with its operating panel (handset, keys, dial)' },
-  { keys: 'Enter on another part', does: "Reach that part's own buttons with Tab" },
-  { keys: 'Space', does: 'Select the part (its Lead card shows it)' },
-  { keys: 'Shift+Arrow keys', does: 'Move the selected part (each step can be undone)' },
-  { keys: 'Escape', does: 'Close the operating panel, or leave the part' },
-];

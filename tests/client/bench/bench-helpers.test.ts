@@ -1,19 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { cadenceCss } from '@/components/bench/nodes/lamp-cadence';
-import { shortcutFor } from '@/composables/bench/use-keyboard-shortcuts';
 import { toneIsOn } from '@/composables/bench/use-handset-audio';
-
-const key = (
-  k: string,
-  mods: Partial<{ ctrlKey: boolean; shiftKey: boolean; metaKey: boolean; altKey: boolean }> = {},
-) => ({
-  key: k,
-  ctrlKey: false,
-  metaKey: false,
-  shiftKey: false,
-  altKey: false,
-  ...mods,
-});
 
 describe('lamp cadence CSS', () => {
   it('takes period and lit share from the engine cadences', () => {
@@ -38,21 +25,5 @@ describe('handset tone cadence', () => {
     expect(toneIsOn('ringback', 2100)).toBe(false);
     expect(toneIsOn('ringback', 6100)).toBe(true);
     expect(toneIsOn('dial', 123_456)).toBe(true);
-  });
-});
-
-describe('bench shortcuts', () => {
-  it('maps the documented keys', () => {
-    expect(shortcutFor(key('z', { ctrlKey: true }))).toBe('undo');
-    expect(shortcutFor(key('Z', { ctrlKey: true, shiftKey: true }))).toBe('redo');
-    expect(shortcutFor(key('y', { ctrlKey: true }))).toBe('redo');
-    expect(shortcutFor(key('d', { metaKey: true }))).toBe('duplicate');
-    expect(shortcutFor(key('Delete'))).toBe('remove');
-    expect(shortcutFor(key('f'))).toBe('fit');
-    expect(shortcutFor(key('F2'))).toBe('rename');
-    expect(shortcutFor(key('Escape'))).toBe('clear');
-    expect(shortcutFor(key('?', { shiftKey: true }))).toBe('help');
-    expect(shortcutFor(key('a'))).toBeNull();
-    expect(shortcutFor(key('f', { altKey: true }))).toBeNull();
   });
 });
