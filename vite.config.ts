@@ -5,7 +5,7 @@ import vue from '@vitejs/plugin-vue';
 const apiPort = Number(process.env.PORT ?? 3000);
 
 export default defineConfig({
-  plugins: [vue()],
+  plugins: [vue({ features: { optionsAPI: false } })],
   resolve: {
     alias: {
       '@': fileURLToPath(new URL('./src', import.meta.url)),
@@ -20,6 +20,8 @@ export default defineConfig({
   worker: { format: 'es' },
   build: {
     chunkSizeWarningLimit: 900,
+    // Every browser the product supports preloads modules itself; the polyfill would only weigh down the entry.
+    modulePreload: { polyfill: false },
     rolldownOptions: {
       output: {
         codeSplitting: {

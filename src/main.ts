@@ -1,6 +1,6 @@
 import { createApp } from 'vue';
 import App from './App.vue';
-import './plugins/fonts';
+import './styles/fonts.css';
 import './styles/base.css';
 import { pinia } from './plugins/pinia';
 import { createBrowserRouter } from './plugins/router';

@@ -16,7 +16,9 @@ export function lazyLoadingBar(pinia: Pinia): NavigationProgress {
       if (method !== 'start') first = false;
       return;
     }
-    bar ??= import('./naive-discrete').then((m) => m.createLoadingBar(pinia));
+    bar ??= import('./app-kit')
+      .then((kit) => kit.loadLoadingBar())
+      .then((m) => m.createLoadingBar(pinia));
     const loaded = bar;
     chain = chain.then(async () => (await loaded)[method]()).catch(() => undefined);
   };

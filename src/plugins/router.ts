@@ -17,11 +17,9 @@ export function createBrowserRouter(app: App, pinia: Pinia) {
   router.beforeEach(async (to) => {
     if (watching || to.meta.light) return;
     watching = true;
-    const [{ setUnauthenticatedHandler, retryUnlessRefused }, { useSessionStore }, { VueQueryPlugin }] = await Promise.all([
-      import('@/api/client'),
-      import('@/stores/session.store'),
-      import('@tanstack/vue-query'),
-    ]);
+    // The page imports are needed once the guards pass; fetch them alongside the session look-up.
+    void import('@/router/pages').catch(() => undefined);
+    const { setUnauthenticatedHandler, retryUnlessRefused, useSessionStore, VueQueryPlugin } = await import('./app-kit');
     app.use(VueQueryPlugin, { queryClientConfig: { defaultOptions: { queries: { retry: retryUnlessRefused } } } });
     setUnauthenticatedHandler(() => {
       const session = useSessionStore(pinia);

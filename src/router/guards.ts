@@ -13,10 +13,7 @@ export async function decideAccess(
 ): Promise<true | RouteLocationRaw> {
   if (to.meta.light) return true;
   // Loaded on demand: the session brings the API client and its schemas, which a light page does not need.
-  const [{ useSessionStore }, { loadSession }] = await Promise.all([
-    import('@/stores/session.store'),
-    import('@/composables/use-session-actions'),
-  ]);
+  const { useSessionStore, loadSession } = await import('@/plugins/app-kit');
   const session = useSessionStore(pinia);
   if (!session.loaded) {
     try {

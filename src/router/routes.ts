@@ -1,5 +1,9 @@
+import type { Component } from 'vue';
 import type { RouteRecordRaw } from 'vue-router';
 import type { Role } from '@shared/schemas';
+// The landing comes with the entry: it is the first page of a first visit, and it is small.
+import LandingPage from '@/pages/landing/index.vue';
+import type { PageName } from './pages';
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -22,6 +26,15 @@ export const DRILL_ROLES: readonly Role[] = ['trainee', 'instructor', 'admin'];
 export const PEOPLE_ROLES: readonly Role[] = ['admin'];
 export const TEACHING_ROLES: readonly Role[] = ['instructor', 'admin'];
 
+/** A page's component, loaded with the module of page imports (`./pages`) on the first visit to one. */
+function page(name: PageName): () => Promise<{ default: Component }> {
+  return () =>
+    import('./pages').then((m) => {
+      const load: () => Promise<{ default: Component }> = m.pages[name];
+      return load();
+    });
+}
+
 /** A revision number from the address, or undefined for anything else (the current copy then opens). */
 function revisionOf(value: unknown): number | undefined {
   const n = typeof value === 'string' ? Number(value) : NaN;
@@ -32,49 +45,49 @@ export const routes: RouteRecordRaw[] = [
   {
     path: '/',
     name: 'landing',
-    component: () => import('@/pages/landing/index.vue'),
+    component: LandingPage,
     meta: { public: true, light: true, title: 'Key systems, wired right' },
   },
   {
     path: '/sign-in',
     name: 'sign-in',
-    component: () => import('@/pages/sign-in/index.vue'),
+    component: page('signIn'),
     meta: { public: true, guestOnly: true, title: 'Sign in' },
   },
   {
     path: '/sign-up',
     name: 'sign-up',
-    component: () => import('@/pages/sign-up/index.vue'),
+    component: page('signUp'),
     meta: { public: true, guestOnly: true, title: 'Create an account' },
   },
   {
     path: '/forgot-password',
     name: 'forgot-password',
-    component: () => import('@/pages/password/ForgotPasswordPage.vue'),
+    component: page('forgotPassword'),
     meta: { public: true, title: 'Forgot password' },
   },
   {
     path: '/reset-password',
     name: 'reset-password',
-    component: () => import('@/pages/password/ResetPasswordPage.vue'),
+    component: page('resetPassword'),
     meta: { public: true, title: 'Choose a new password' },
   },
   {
     path: '/verify-email',
     name: 'verify-email',
-    component: () => import('@/pages/verify-email/index.vue'),
+    component: page('verifyEmail'),
     meta: { public: true, title: 'Confirm e-mail address' },
   },
   {
     path: '/plans',
     name: 'plans',
-    component: () => import('@/pages/plans/index.vue'),
+    component: page('plans'),
     meta: { title: 'Plans' },
   },
   {
     path: '/plans/:id',
     name: 'bench',
-    component: () => import('@/pages/bench/index.vue'),
+    component: page('bench'),
     // `?revision=3` opens that saved revision to look at.
     props: (r) => ({ id: r.params.id, revision: revisionOf(r.query.revision) }),
     meta: { title: 'Bench', fullBleed: true },
@@ -82,60 +95,60 @@ export const routes: RouteRecordRaw[] = [
   {
     path: '/try',
     name: 'try',
-    component: () => import('@/pages/bench/index.vue'),
+    component: page('bench'),
     props: { guest: true },
     meta: { public: true, title: 'Try the Bench', fullBleed: true },
   },
   {
     path: '/plans/:id/sheet',
     name: 'work-sheet',
-    component: () => import('@/pages/work-sheet/index.vue'),
+    component: page('workSheet'),
     props: true,
     meta: { title: 'Work sheet' },
   },
   {
     path: '/shared/:token',
     name: 'shared-link',
-    component: () => import('@/pages/plans/SharedLinkPage.vue'),
+    component: page('sharedLink'),
     props: true,
     meta: { title: 'Shared plan' },
   },
   {
     path: '/drills',
     children: [
-      { path: '', name: 'drills', component: () => import('@/pages/drills/index.vue'), meta: { title: 'Drills', roles: DRILL_ROLES } },
-      { path: 'join/:token', name: 'drills-join', component: () => import('@/pages/drills/JoinPage.vue'), props: true, meta: { public: true, title: 'Join a class' } },
-      { path: 'progress', name: 'drills-progress', component: () => import('@/pages/drills/ProgressPage.vue'), meta: { title: 'My progress' } },
-      { path: 'classes/:id', name: 'drills-class', component: () => import('@/pages/drills/ClassDeskPage.vue'), props: true, meta: { title: 'Class desk', roles: TEACHING_ROLES } },
-      { path: 'puzzles/new', name: 'drills-puzzle-maker', component: () => import('@/pages/drills/PuzzleMakerPage.vue'), meta: { title: 'Puzzle maker', roles: TEACHING_ROLES } },
-      { path: 'hunt/:assignmentId', name: 'drills-hunt', component: () => import('@/pages/drills/FaultHuntPage.vue'), props: true, meta: { title: 'Fault hunt' } },
-      { path: 'demonstrations/new', name: 'drills-demo-builder', component: () => import('@/pages/drills/DemonstrationBuilderPage.vue'), meta: { title: 'Demonstration builder', roles: TEACHING_ROLES, fullBleed: true } },
-      { path: 'demonstrations/:id/present', name: 'drills-projector', component: () => import('@/pages/drills/ProjectorPage.vue'), props: (r) => ({ id: r.params.id, source: 'own' }), meta: { title: 'Projector view', roles: TEACHING_ROLES, fullBleed: true } },
-      { path: 'step-through/:id', name: 'drills-step-through', component: () => import('@/pages/drills/ProjectorPage.vue'), props: (r) => ({ id: r.params.id, source: 'assigned' }), meta: { title: 'Step-through', fullBleed: true } },
+      { path: '', name: 'drills', component: page('drills'), meta: { title: 'Drills', roles: DRILL_ROLES } },
+      { path: 'join/:token', name: 'drills-join', component: page('drillsJoin'), props: true, meta: { public: true, title: 'Join a class' } },
+      { path: 'progress', name: 'drills-progress', component: page('drillsProgress'), meta: { title: 'My progress' } },
+      { path: 'classes/:id', name: 'drills-class', component: page('classDesk'), props: true, meta: { title: 'Class desk', roles: TEACHING_ROLES } },
+      { path: 'puzzles/new', name: 'drills-puzzle-maker', component: page('puzzleMaker'), meta: { title: 'Puzzle maker', roles: TEACHING_ROLES } },
+      { path: 'hunt/:assignmentId', name: 'drills-hunt', component: page('faultHunt'), props: true, meta: { title: 'Fault hunt' } },
+      { path: 'demonstrations/new', name: 'drills-demo-builder', component: page('demonstrationBuilder'), meta: { title: 'Demonstration builder', roles: TEACHING_ROLES, fullBleed: true } },
+      { path: 'demonstrations/:id/present', name: 'drills-projector', component: page('projector'), props: (r) => ({ id: r.params.id, source: 'own' }), meta: { title: 'Projector view', roles: TEACHING_ROLES, fullBleed: true } },
+      { path: 'step-through/:id', name: 'drills-step-through', component: page('projector'), props: (r) => ({ id: r.params.id, source: 'assigned' }), meta: { title: 'Step-through', fullBleed: true } },
     ],
   },
   {
     path: '/account',
     name: 'account',
-    component: () => import('@/pages/account/index.vue'),
+    component: page('account'),
     meta: { title: 'Account' },
   },
   {
     path: '/people',
     name: 'people',
-    component: () => import('@/pages/people/index.vue'),
+    component: page('people'),
     meta: { title: 'People', roles: PEOPLE_ROLES },
   },
   {
     path: '/forbidden',
     name: 'forbidden',
-    component: () => import('@/pages/errors/ForbiddenPage.vue'),
+    component: page('forbidden'),
     meta: { public: true, title: 'Not for this account' },
   },
   {
     path: '/:pathMatch(.*)*',
     name: 'not-found',
-    component: () => import('@/pages/errors/NotFoundPage.vue'),
+    component: page('notFound'),
     meta: { public: true, title: 'Page not found' },
   },
 ];

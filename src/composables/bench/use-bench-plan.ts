@@ -8,7 +8,6 @@ import { useQuery, useQueryClient } from '@tanstack/vue-query';
 import type { Plan } from '@shared/engine/documents';
 import type { PlanRecord } from '@shared/schemas';
 import { plansApi } from '@/api/plans';
-import { demoPlan } from '@/plans/plan-starters';
 import { useBenchStore } from '@/stores/bench.store';
 import { PLANS_KEY } from '@/composables/use-plan-library';
 import { useGuestPlan } from './use-guest-plan';
@@ -57,7 +56,8 @@ export const fromRecord = (record: PlanRecord): OpenedPlan => ({
 
 async function fetchOpened(source: BenchSource, guestPlan: Plan | null): Promise<OpenedPlan> {
   if (source.kind === 'guest') {
-    const document = guestPlan ?? (await demoPlan());
+    // The plan starters come with the guest bench only; a saved plan opens without them.
+    const document = guestPlan ?? (await import('@/plans/plan-starters').then((m) => m.demoPlan()));
     if (!document) throw new Error('The demo installation is not part of this build.');
     return { document, readOnly: null, canDuplicate: false };
   }
