@@ -133,7 +133,33 @@ export interface Netlist {
   hot: { ca: Int32Array; cb: Int32Array; cond: Int32Array; mech: Int32Array; key: Int32Array; count: number };
   /** Scratch buffer for evaluateNets. */
   work: Int32Array;
-  terminalIndex: Map<string, number>;
+  /** "part index|terminal name" → terminal id, made when first read (terminalId looks one up without it). */
+  readonly terminalIndex: Map<string, number>;
+  /** Per part: named terminals and pin ids per port (what terminalId reads). */
+  partTerminals: { names: Map<string, number> | undefined; pinIds: Map<string, Int32Array> | undefined }[];
+}
+
+/** A part's terminal by name ("port:pin" for a connector pin), or -1. */
+export function terminalId(nl: Netlist, part: number, name: string): number {
+  const at = nl.partTerminals[part];
+  if (!at) return -1;
+  const pin = pinOfName(name);
+  if (pin) {
+    const id = at.pinIds?.get(pin.port)?.[pin.pin] ?? -1;
+    if (id >= 0) return id;
+  }
+  return at.names?.get(name) ?? -1;
+}
+
+const terminalIndexes = new WeakMap<Netlist, Map<string, number>>();
+
+function terminalIndexOf(nl: Netlist): Map<string, number> {
+  let index = terminalIndexes.get(nl);
+  if (!index) {
+    index = new Map(nl.terminals.map((t, i) => [`${t.part}|${t.name}`, i]));
+    terminalIndexes.set(nl, index);
+  }
+  return index;
 }
 
 function find(parent: Int32Array, x: number): number {
@@ -161,9 +187,12 @@ interface Builder {
   parts: PartInfo[];
   partById: Map<string, PartInfo>;
   terminals: TerminalInfo[];
-  terminalIndex: Map<string, number>;
+  /** Per part: its named (non-pin) terminals by name. */
+  names: (Map<string, number> | undefined)[];
   /** Per part and port: terminal id of each connector pin, -1 until asked for. */
   pinIds: (Map<string, Int32Array> | undefined)[];
+  /** Parts whose names / pinIds maps are shared with a cached wiring (copied before they change). */
+  shared: Set<number>;
   edges: Edge[];
   contactEdges: Edge[];
   contacts: ContactInfo[];
@@ -185,8 +214,9 @@ function newBuilder(cached: boolean): Builder {
     parts: [],
     partById: new Map(),
     terminals: [],
-    terminalIndex: new Map(),
+    names: [],
     pinIds: [],
+    shared: new Set(),
     edges: [],
     contactEdges: [],
     contacts: [],
@@ -207,41 +237,64 @@ function addPart(
   return p;
 }
 
+/** Port and pin when `name` is "port:pin" with a pin of the 25-pair connector, else null. */
+function pinOfName(name: string): { port: string; pin: number } | null {
+  const colon = name.lastIndexOf(':');
+  if (colon <= 0) return null;
+  const pin = Number(name.slice(colon + 1));
+  return Number.isInteger(pin) && pin >= 1 && pin <= PIN_COUNT ? { port: name.slice(0, colon), pin } : null;
+}
+
+/** Before a part's names or pin ids change, stop sharing them with the cached wiring they came from. */
+function ownMaps(b: Builder, part: number): void {
+  if (!b.shared.delete(part)) return;
+  const names = b.names[part];
+  if (names) b.names[part] = new Map(names);
+  const pins = b.pinIds[part];
+  if (pins) b.pinIds[part] = new Map([...pins].map(([port, ids]) => [port, ids.slice()]));
+}
+
+function newTerminal(b: Builder, info: TerminalInfo): number {
+  b.terminals.push(info);
+  return b.terminals.length - 1;
+}
+
 /** A part's terminal by name, made on first use; "port:pin" names are connector pins and carry their pair. */
 function term(b: Builder, part: number, name: string): number {
-  const key = `${part}|${name}`;
-  let id = b.terminalIndex.get(key);
-  if (id === undefined) {
-    id = b.terminals.length;
-    const info: TerminalInfo = { part, name };
-    const colon = name.lastIndexOf(':');
-    if (colon > 0) {
-      const pin = Number(name.slice(colon + 1));
-      if (Number.isInteger(pin) && pin >= 1 && pin <= PIN_COUNT) {
-        info.port = name.slice(0, colon);
-        info.pin = pin;
-        const { pair, conductor } = pinToPair(pin);
-        info.pair = pair;
-        info.conductor = conductor;
-      }
-    }
-    b.terminals.push(info);
-    b.terminalIndex.set(key, id);
-  }
-  return id;
+  const pin = pinOfName(name);
+  if (pin) return pinTerm(b, part, pin.port, pin.pin);
+  const id = b.names[part]?.get(name);
+  if (id !== undefined) return id;
+  ownMaps(b, part);
+  const made = newTerminal(b, { part, name });
+  (b.names[part] ??= new Map()).set(name, made);
+  return made;
 }
 
 /** Connector pins are asked for often (every cable, bridge and lead): their ids are kept per part and port. */
 function pinTerm(b: Builder, part: number, port: string, pin: number): number {
   if (!(pin >= 1 && pin <= PIN_COUNT)) return term(b, part, `${port}:${pin}`);
+  const known = b.pinIds[part]?.get(port);
+  if (known && known[pin] >= 0) return known[pin];
+  ownMaps(b, part);
   const byPort = (b.pinIds[part] ??= new Map());
   let ids = byPort.get(port);
   if (!ids) {
     ids = new Int32Array(PIN_COUNT + 1).fill(-1);
     byPort.set(port, ids);
   }
-  if (ids[pin] < 0) ids[pin] = term(b, part, `${port}:${pin}`);
+  const { pair, conductor } = pinToPair(pin);
+  ids[pin] = newTerminal(b, { part, name: `${port}:${pin}`, port, pin, pair, conductor });
   return ids[pin];
+}
+
+/**
+ * Every pin of each of a part's ports, made before anything else of the part: a part then has the same terminals
+ * whatever its lead changes and whatever is cabled to it, so an edit leaves every other part's terminal ids as
+ * they were (and their cached wiring reusable as it is).
+ */
+function allPins(b: Builder, part: number, ports: readonly string[]): void {
+  for (const port of ports) for (let pin = 1; pin <= PIN_COUNT; pin++) pinTerm(b, part, port, pin);
 }
 
 /**
@@ -271,6 +324,7 @@ function ksuTerminals(b: Builder, plan: Plan, ksuPart: PartInfo): KsuTerminals {
 /** The KSU cross-connect: which line-circuit lead or buzzer output each pair of each station port carries. */
 function wireCrossConnect(b: Builder, plan: Plan, ksu: KsuTerminals): void {
   const { ksuPart, gnd } = ksu;
+  allPins(b, ksuPart.index, Array.from({ length: plan.ksu.ports }, (_, i) => ksuPortName(i + 1)));
   const lineByNumber = new Map(ksu.lines.map((l) => [l.number, l]));
   const stationById = new Map(ksu.stations.map((s) => [s.id, s]));
   for (const cc of effectiveCrossConnect(plan.ksu)) {
@@ -440,6 +494,7 @@ function wirePart(
 ): void {
   const tpl = p.template;
   if (!tpl) return;
+  allPins(b, p.index, tpl.ports.map((pt) => pt.name));
   wireLeads(b, p, tpl, changes);
   wireBridges(b, p, tpl, bridgedPairs);
   addContacts(b, p, tpl, ownerSet);
@@ -448,6 +503,8 @@ function wirePart(
 
 /** A set's ringers: one load per line the plan straps it to, across that line's strap terminals. */
 function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly number[]): void {
+  // every strap's terminals, strapped or not: the part's terminals do not depend on its straps
+  for (const strap of p.template?.ringerStraps ?? []) [strap.tip, strap.ring].forEach((n) => term(b, p.index, n));
   for (const line of ringerLines) {
     const strap = p.template?.ringerStraps?.find((r) => r.line === line);
     if (!strap) continue;
@@ -468,7 +525,7 @@ interface PartWiring {
   termBase: number;
   contactBase: number;
   terminals: TerminalInfo[];
-  termNames: string[];
+  names: Map<string, number> | undefined;
   pinIds: Map<string, Int32Array> | undefined;
   edges: Edge[];
   contactEdges: Edge[];
@@ -478,29 +535,61 @@ interface PartWiring {
 
 /**
  * Part wirings by content (the KSU's with its cross-connect too): after an edit in the Bench (one part at a time, a
- * new plan object) every other part is wired exactly as before. A part's terminals are all made while it is wired, so its wiring depends only on its
- * own data, its index and the set that owns it (all in the key), up to where its terminal ids and contact indices
- * start: a hit made at the same ids pushes the same objects again, one made elsewhere pushes them shifted. Either
- * way equal to what a fresh build makes. Netlists never change after build, so sharing the objects is safe.
+ * new plan object) every other part is wired exactly as before. A part's terminals are all made while it is wired,
+ * and how many depends on its template alone (allPins, addRingers), so its wiring depends only on its own data, its
+ * index and the set that owns it (all in the key), up to where its terminal ids and contact indices start: a hit
+ * made at the same ids pushes the same objects again, one made elsewhere (after a part whose template changed)
+ * pushes them shifted. Either way equal to what a fresh build makes. Netlists never change after build, so sharing
+ * the objects is safe.
  */
 const partWirings = new Map<string, PartWiring>();
 /** Least recently used go first (Map order): enough for a few versions of a large plan, a few MB at most. */
 const PART_WIRINGS_MAX = 512;
+
+/** A plan part's content as text, made once per part object (plans are never changed in place). */
+const contentKeys = new WeakMap<object, string>();
+export function contentKey(data: object): string {
+  let key = contentKeys.get(data);
+  if (key === undefined) {
+    key = JSON.stringify(data);
+    contentKeys.set(data, key);
+  }
+  return key;
+}
+
+/** Least recently used entries go first once a cache holds `max` (Map order). */
+function lruGet<T>(cache: Map<string, T>, key: string): T | undefined {
+  const hit = cache.get(key);
+  if (hit !== undefined) {
+    cache.delete(key);
+    cache.set(key, hit);
+  }
+  return hit;
+}
+
+function lruSet<T>(cache: Map<string, T>, key: string, value: T, max: number): void {
+  if (cache.size >= max) cache.delete(cache.keys().next().value!);
+  cache.set(key, value);
+}
 
 const shiftEdge = (e: Edge, dt: number, dc: number): Edge =>
   e.contact === undefined
     ? { ...e, a: e.a + dt, b: e.b + dt }
     : { ...e, a: e.a + dt, b: e.b + dt, contact: e.contact + dc };
 
+const shiftIds = (ids: Int32Array, dt: number) => ids.map((id) => (id < 0 ? id : id + dt));
+
 function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
   const dt = b.terminals.length - w.termBase;
   const dc = b.contacts.length - w.contactBase;
   for (const t of w.terminals) b.terminals.push(t);
-  w.termNames.forEach((name, i) => b.terminalIndex.set(name, b.terminals.length - w.terminals.length + i));
-  if (w.pinIds) {
-    const byPort = new Map<string, Int32Array>();
-    for (const [port, ids] of w.pinIds) byPort.set(port, ids.map((id) => (id < 0 ? id : id + dt)));
-    b.pinIds[p.index] = byPort;
+  if (dt === 0) {
+    b.names[p.index] = w.names;
+    b.pinIds[p.index] = w.pinIds;
+    b.shared.add(p.index);
+  } else {
+    b.names[p.index] = w.names && new Map([...w.names].map(([n, id]) => [n, id + dt]));
+    b.pinIds[p.index] = w.pinIds && new Map([...w.pinIds].map(([port, ids]) => [port, shiftIds(ids, dt)]));
   }
   if (dt === 0 && dc === 0) {
     for (const e of w.edges) b.edges.push(e);
@@ -515,32 +604,32 @@ function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
   for (const e of w.elements) b.elements.push({ ...e, a: e.a + dt, b: e.b + dt });
 }
 
-function wireCached(b: Builder, p: PartInfo, data: unknown, ownerSet: number, wire: () => void): void {
+function wireCached(b: Builder, p: PartInfo, data: object, ownerSet: number, wire: () => void): void {
   if (!b.cached) return wire();
-  const key = `${p.index}|${ownerSet}|${p.kind}|${JSON.stringify(data)}`;
-  const hit = partWirings.get(key);
-  if (hit) {
-    partWirings.delete(key);
-    partWirings.set(key, hit);
-    return pushWiring(b, p, hit);
-  }
+  const key = `${p.index}|${ownerSet}|${p.kind}|${contentKey(data)}`;
+  const hit = lruGet(partWirings, key);
+  if (hit) return pushWiring(b, p, hit);
   const at = [b.terminals.length, b.edges.length, b.contactEdges.length, b.contacts.length, b.elements.length];
   wire();
-  const terminals = b.terminals.slice(at[0]);
+  const names = b.names[p.index];
   const pins = b.pinIds[p.index];
-  if (partWirings.size >= PART_WIRINGS_MAX) partWirings.delete(partWirings.keys().next().value!);
-  partWirings.set(key, {
-    termBase: at[0],
-    contactBase: at[3],
-    terminals,
-    termNames: terminals.map((t) => `${p.index}|${t.name}`),
-    // as the part left them: cables fill in more pins later, on the builder's copy
-    pinIds: pins && new Map([...pins].map(([port, ids]) => [port, ids.slice()])),
-    edges: b.edges.slice(at[1]),
-    contactEdges: b.contactEdges.slice(at[2]),
-    contacts: b.contacts.slice(at[3]),
-    elements: b.elements.slice(at[4]),
-  });
+  lruSet(
+    partWirings,
+    key,
+    {
+      termBase: at[0],
+      contactBase: at[3],
+      terminals: b.terminals.slice(at[0]),
+      // copies: the builder's own maps stay the builder's
+      names: names && new Map(names),
+      pinIds: pins && new Map([...pins].map(([port, ids]) => [port, ids.slice()])),
+      edges: b.edges.slice(at[1]),
+      contactEdges: b.contactEdges.slice(at[2]),
+      contacts: b.contacts.slice(at[3]),
+      elements: b.elements.slice(at[4]),
+    },
+    PART_WIRINGS_MAX,
+  );
 }
 
 /** Every part's wiring: sets (then their ringers), add-ons, adapters, in plan order. */
@@ -577,22 +666,43 @@ function portExists(plan: Plan, part: PartInfo, port: string): boolean {
   return !!part.template?.ports.some((pt) => pt.name === port);
 }
 
+/**
+ * Each cable's wires by content and by the terminal ids its two ports start at (every port's pins are made
+ * together, in pin order): an edit elsewhere leaves both, and the cable's wires are the same objects again.
+ */
+const cableWirings = new Map<string, Edge[]>();
+const CABLE_WIRINGS_MAX = 2048;
+
+function cableEdges(b: Builder, c: Plan['cables'][number], from: PartInfo, to: PartInfo): Edge[] {
+  const wire = () =>
+    // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
+    cableWires(c).map(
+      (w): Edge => ({
+        a: pinTerm(b, from.index, c.from.port, w.fromPin),
+        b: pinTerm(b, to.index, c.to.port, w.toPin),
+        kind: 'cable',
+        label: `cable ${c.label || c.id}${w.note}`,
+        cable: c.id,
+      }),
+    );
+  const first = [pinTerm(b, from.index, c.from.port, 1), pinTerm(b, to.index, c.to.port, 1)];
+  const last = [pinTerm(b, from.index, c.from.port, PIN_COUNT), pinTerm(b, to.index, c.to.port, PIN_COUNT)];
+  // the ports' pins in one run of ids (allPins), so the first pin's ids say where all of them are
+  const runs = last[0] - first[0] === PIN_COUNT - 1 && last[1] - first[1] === PIN_COUNT - 1;
+  if (!b.cached || !runs) return wire();
+  const key = `${first[0]}|${first[1]}|${contentKey(c)}`;
+  let edges = lruGet(cableWirings, key);
+  if (!edges) lruSet(cableWirings, key, (edges = wire()), CABLE_WIRINGS_MAX);
+  return edges;
+}
+
 /** Cables: pin for pin between two existing ports (a cable to a missing part or port carries nothing). */
 function wireCables(b: Builder, plan: Plan): void {
   for (const c of plan.cables) {
     const from = b.partById.get(c.from.part);
     const to = b.partById.get(c.to.part);
     if (!from || !to || !portExists(plan, from, c.from.port) || !portExists(plan, to, c.to.port)) continue;
-    // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
-    for (const w of cableWires(c)) {
-      b.edges.push({
-        a: pinTerm(b, from.index, c.from.port, w.fromPin),
-        b: pinTerm(b, to.index, c.to.port, w.toPin),
-        kind: 'cable',
-        label: `cable ${c.label || c.id}${w.note}`,
-        cable: c.id,
-      });
-    }
+    for (const e of cableEdges(b, c, from, to)) b.edges.push(e);
   }
 }
 
@@ -691,6 +801,9 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
     denseCount,
     hot,
     work: new Int32Array(denseCount),
-    terminalIndex: b.terminalIndex,
+    get terminalIndex() {
+      return terminalIndexOf(this);
+    },
+    partTerminals: b.parts.map((_, i) => ({ names: b.names[i], pinIds: b.pinIds[i] })),
   };
 }

@@ -8,7 +8,7 @@
  */
 import { pinOf } from '../document/cable-code';
 import type { NetFacts } from '../model/facts';
-import type { ElementInfo, Netlist } from '../model/netlist';
+import { terminalId, type ElementInfo, type Netlist } from '../model/netlist';
 import { splitPins, wiringFaultWords } from '../model/cable-faults';
 import type { Evaluation } from './evaluation.types';
 
@@ -49,7 +49,7 @@ function layoutOf(nl: Netlist): WiringLayout {
       const terms = (pair: number) =>
         pins
           .filter((pin) => pin === pinOf(pair, 'tip') || pin === pinOf(pair, 'ring'))
-          .map((pin) => nl.terminalIndex.get(`${from.index}|${c.from.port}:${pin}`) ?? -1)
+          .map((pin) => terminalId(nl, from.index, `${c.from.port}:${pin}`))
           .filter((t) => t >= 0);
       if (fault.kind !== 'split-pair') continue;
       splits.push({
