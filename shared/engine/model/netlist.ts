@@ -254,6 +254,28 @@ function ownMaps(b: Builder, part: number): void {
   if (pins) b.pinIds[part] = new Map([...pins].map(([port, ids]) => [port, ids.slice()]));
 }
 
+/**
+ * Every terminal, wire and load object has all its fields, in one order: the loops over thousands of them (static
+ * components, adjacency, finding rules) then read one object shape, not several.
+ */
+const terminalInfo = (part: number, name: string): TerminalInfo => ({
+  part,
+  name,
+  port: undefined,
+  pin: undefined,
+  pair: undefined,
+  conductor: undefined,
+  lead: undefined,
+});
+
+const edge = (
+  a: number,
+  b: number,
+  kind: EdgeKind,
+  label: string,
+  more: Pick<Edge, 'cable' | 'lead' | 'contact'> = {},
+): Edge => ({ a, b, kind, label, cable: more.cable, lead: more.lead, contact: more.contact });
+
 function newTerminal(b: Builder, info: TerminalInfo): number {
   b.terminals.push(info);
   return b.terminals.length - 1;
@@ -266,7 +288,7 @@ function term(b: Builder, part: number, name: string): number {
   const id = b.names[part]?.get(name);
   if (id !== undefined) return id;
   ownMaps(b, part);
-  const made = newTerminal(b, { part, name });
+  const made = newTerminal(b, terminalInfo(part, name));
   (b.names[part] ??= new Map()).set(name, made);
   return made;
 }
@@ -284,7 +306,7 @@ function pinTerm(b: Builder, part: number, port: string, pin: number): number {
     byPort.set(port, ids);
   }
   const { pair, conductor } = pinToPair(pin);
-  ids[pin] = newTerminal(b, { part, name: `${port}:${pin}`, port, pin, pair, conductor });
+  ids[pin] = newTerminal(b, { ...terminalInfo(part, `${port}:${pin}`), port, pin, pair, conductor });
   return ids[pin];
 }
 
@@ -352,8 +374,8 @@ function wireCrossConnect(b: Builder, plan: Plan, ksu: KsuTerminals): void {
         [tipTo, ringTo, what] = [line.l, gnd, `line ${line.number} lamp L / LG`];
       else [tipTo, ringTo, what] = [line.a, line.l, `line ${line.number} A-lead and lamp lead`];
     }
-    b.edges.push({ a: tipPin, b: tipTo, kind: 'cross-connect', label: `cross-connect: ${what} (tip)` });
-    b.edges.push({ a: ringPin, b: ringTo, kind: 'cross-connect', label: `cross-connect: ${what} (ring)` });
+    b.edges.push(edge(tipPin, tipTo, 'cross-connect', `cross-connect: ${what} (tip)`));
+    b.edges.push(edge(ringPin, ringTo, 'cross-connect', `cross-connect: ${what} (ring)`));
   }
 }
 
@@ -419,7 +441,7 @@ function wireLeads(b: Builder, p: PartInfo, tpl: PartTemplate, changes: readonly
     if (pair === null) return;
     const pin = pinTerm(b, p.index, tpl.leadPort!, pinOf(pair, lead.conductor));
     const moved = pair !== lead.pair ? ` (moved to pair ${pair}, ${pairColour(pair).name})` : '';
-    b.edges.push({ a: t, b: pin, kind: 'lead', label: `lead ${lead.designation}${moved}`, lead });
+    b.edges.push(edge(t, pin, 'lead', `lead ${lead.designation}${moved}`, { lead }));
   });
 }
 
@@ -432,12 +454,7 @@ function wireBridges(b: Builder, p: PartInfo, tpl: PartTemplate, bridgedPairs?: 
         const pin = pinOf(pair, conductor);
         const first = pinTerm(b, p.index, group[0], pin);
         for (let g = 1; g < group.length; g++) {
-          b.edges.push({
-            a: first,
-            b: pinTerm(b, p.index, group[g], pin),
-            kind: 'bridge',
-            label: `bridged inside ${p.name}`,
-          });
+          b.edges.push(edge(first, pinTerm(b, p.index, group[g], pin), 'bridge', `bridged inside ${p.name}`));
         }
       }
     }
@@ -465,7 +482,7 @@ function addContacts(b: Builder, p: PartInfo, tpl: PartTemplate, ownerSet: numbe
       part: p.index,
       label: c.label,
     });
-    b.contactEdges.push({ a, b: z, kind: 'contact', label: c.label, contact: index });
+    b.contactEdges.push(edge(a, z, 'contact', c.label, { contact: index }));
   }
 }
 
@@ -479,6 +496,7 @@ function addElements(b: Builder, p: PartInfo, tpl: PartTemplate, ownerSet: numbe
       part: p.index,
       owner: ownerSet,
       key: e.key,
+      line: undefined,
       label: e.label,
     });
   }
@@ -504,7 +522,10 @@ function wirePart(
 /** A set's ringers: one load per line the plan straps it to, across that line's strap terminals. */
 function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly number[]): void {
   // every strap's terminals, strapped or not: the part's terminals do not depend on its straps
-  for (const strap of p.template?.ringerStraps ?? []) [strap.tip, strap.ring].forEach((n) => term(b, p.index, n));
+  for (const strap of p.template?.ringerStraps ?? []) {
+    term(b, p.index, strap.tip);
+    term(b, p.index, strap.ring);
+  }
   for (const line of ringerLines) {
     const strap = p.template?.ringerStraps?.find((r) => r.line === line);
     if (!strap) continue;
@@ -514,6 +535,7 @@ function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly
       b: term(b, p.index, strap.ring),
       part: p.index,
       owner: set.index,
+      key: undefined,
       line,
       label: `Ringer strapped to line ${line}`,
     });
@@ -582,7 +604,8 @@ const shiftIds = (ids: Int32Array, dt: number) => ids.map((id) => (id < 0 ? id :
 function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
   const dt = b.terminals.length - w.termBase;
   const dc = b.contacts.length - w.contactBase;
-  for (const t of w.terminals) b.terminals.push(t);
+  // one part has a few hundred of each at most: push(...) copies them in one go
+  b.terminals.push(...w.terminals);
   if (dt === 0) {
     b.names[p.index] = w.names;
     b.pinIds[p.index] = w.pinIds;
@@ -592,10 +615,10 @@ function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
     b.pinIds[p.index] = w.pinIds && new Map([...w.pinIds].map(([port, ids]) => [port, shiftIds(ids, dt)]));
   }
   if (dt === 0 && dc === 0) {
-    for (const e of w.edges) b.edges.push(e);
-    for (const e of w.contactEdges) b.contactEdges.push(e);
-    for (const c of w.contacts) b.contacts.push(c);
-    for (const e of w.elements) b.elements.push(e);
+    b.edges.push(...w.edges);
+    b.contactEdges.push(...w.contactEdges);
+    b.contacts.push(...w.contacts);
+    b.elements.push(...w.elements);
     return;
   }
   for (const e of w.edges) b.edges.push(shiftEdge(e, dt, dc));
@@ -604,32 +627,38 @@ function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
   for (const e of w.elements) b.elements.push({ ...e, a: e.a + dt, b: e.b + dt });
 }
 
+/** The last wiring made or found for a part object, with the index and owner it was made for. */
+const wiringByObject = new WeakMap<object, { at: string; wiring: PartWiring }>();
+
 function wireCached(b: Builder, p: PartInfo, data: object, ownerSet: number, wire: () => void): void {
   if (!b.cached) return wire();
-  const key = `${p.index}|${ownerSet}|${p.kind}|${contentKey(data)}`;
+  const at = `${p.index}|${ownerSet}|${p.kind}`;
+  const same = wiringByObject.get(data);
+  if (same?.at === at) return pushWiring(b, p, same.wiring);
+  const key = `${at}|${contentKey(data)}`;
   const hit = lruGet(partWirings, key);
-  if (hit) return pushWiring(b, p, hit);
-  const at = [b.terminals.length, b.edges.length, b.contactEdges.length, b.contacts.length, b.elements.length];
+  if (hit) {
+    wiringByObject.set(data, { at, wiring: hit });
+    return pushWiring(b, p, hit);
+  }
+  const from = [b.terminals.length, b.edges.length, b.contactEdges.length, b.contacts.length, b.elements.length];
   wire();
   const names = b.names[p.index];
   const pins = b.pinIds[p.index];
-  lruSet(
-    partWirings,
-    key,
-    {
-      termBase: at[0],
-      contactBase: at[3],
-      terminals: b.terminals.slice(at[0]),
-      // copies: the builder's own maps stay the builder's
-      names: names && new Map(names),
-      pinIds: pins && new Map([...pins].map(([port, ids]) => [port, ids.slice()])),
-      edges: b.edges.slice(at[1]),
-      contactEdges: b.contactEdges.slice(at[2]),
-      contacts: b.contacts.slice(at[3]),
-      elements: b.elements.slice(at[4]),
-    },
-    PART_WIRINGS_MAX,
-  );
+  const wiring: PartWiring = {
+    termBase: from[0],
+    contactBase: from[3],
+    terminals: b.terminals.slice(from[0]),
+    // copies: the builder's own maps stay the builder's
+    names: names && new Map(names),
+    pinIds: pins && new Map([...pins].map(([port, ids]) => [port, ids.slice()])),
+    edges: b.edges.slice(from[1]),
+    contactEdges: b.contactEdges.slice(from[2]),
+    contacts: b.contacts.slice(from[3]),
+    elements: b.elements.slice(from[4]),
+  };
+  lruSet(partWirings, key, wiring, PART_WIRINGS_MAX);
+  wiringByObject.set(data, { at, wiring });
 }
 
 /** Every part's wiring: sets (then their ringers), add-ons, adapters, in plan order. */
@@ -672,27 +701,33 @@ function portExists(plan: Plan, part: PartInfo, port: string): boolean {
  */
 const cableWirings = new Map<string, Edge[]>();
 const CABLE_WIRINGS_MAX = 2048;
+const cableByObject = new WeakMap<object, { at: string; edges: Edge[] }>();
 
 function cableEdges(b: Builder, c: Plan['cables'][number], from: PartInfo, to: PartInfo): Edge[] {
   const wire = () =>
     // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
     cableWires(c).map(
-      (w): Edge => ({
-        a: pinTerm(b, from.index, c.from.port, w.fromPin),
-        b: pinTerm(b, to.index, c.to.port, w.toPin),
-        kind: 'cable',
-        label: `cable ${c.label || c.id}${w.note}`,
-        cable: c.id,
-      }),
+      (w): Edge =>
+        edge(
+          pinTerm(b, from.index, c.from.port, w.fromPin),
+          pinTerm(b, to.index, c.to.port, w.toPin),
+          'cable',
+          `cable ${c.label || c.id}${w.note}`,
+          { cable: c.id },
+        ),
     );
   const first = [pinTerm(b, from.index, c.from.port, 1), pinTerm(b, to.index, c.to.port, 1)];
   const last = [pinTerm(b, from.index, c.from.port, PIN_COUNT), pinTerm(b, to.index, c.to.port, PIN_COUNT)];
   // the ports' pins in one run of ids (allPins), so the first pin's ids say where all of them are
   const runs = last[0] - first[0] === PIN_COUNT - 1 && last[1] - first[1] === PIN_COUNT - 1;
   if (!b.cached || !runs) return wire();
-  const key = `${first[0]}|${first[1]}|${contentKey(c)}`;
+  const at = `${first[0]}|${first[1]}`;
+  const same = cableByObject.get(c);
+  if (same?.at === at) return same.edges;
+  const key = `${at}|${contentKey(c)}`;
   let edges = lruGet(cableWirings, key);
   if (!edges) lruSet(cableWirings, key, (edges = wire()), CABLE_WIRINGS_MAX);
+  cableByObject.set(c, { at, edges });
   return edges;
 }
 
@@ -702,7 +737,7 @@ function wireCables(b: Builder, plan: Plan): void {
     const from = b.partById.get(c.from.part);
     const to = b.partById.get(c.to.part);
     if (!from || !to || !portExists(plan, from, c.from.port) || !portExists(plan, to, c.to.port)) continue;
-    for (const e of cableEdges(b, c, from, to)) b.edges.push(e);
+    b.edges.push(...cableEdges(b, c, from, to));
   }
 }
 
@@ -710,20 +745,23 @@ function wireCables(b: Builder, plan: Plan): void {
 function staticComponents(n: number, edges: readonly Edge[]): Int32Array {
   const parent = new Int32Array(n);
   for (let i = 0; i < n; i++) parent[i] = i;
-  for (const e of edges) {
+  for (let k = 0; k < edges.length; k++) {
+    const e = edges[k];
     const ra = find(parent, e.a);
     const rb = find(parent, e.b);
     if (ra !== rb) parent[ra] = rb;
   }
-  const staticRoot = new Int32Array(n);
-  for (let i = 0; i < n; i++) staticRoot[i] = find(parent, i);
-  return staticRoot;
+  // in place: every entry becomes its root
+  for (let i = 0; i < n; i++) parent[i] = find(parent, i);
+  return parent;
 }
 
 /**
  * Dense ids for the static components the state can change or the observations read (KSU leads, loads, contact
  * ends), and the contacts that can join two of them, as flat arrays for the per-state union (nets.ts).
  */
+let rootBuffer = new Int32Array(0);
+
 function denseComponents(
   b: Builder,
   ksu: KsuTerminals,
@@ -731,8 +769,9 @@ function denseComponents(
 ): Pick<Netlist, 'dense' | 'denseCount' | 'hot'> {
   const n = b.terminals.length;
   const dense = new Int32Array(n).fill(-1);
-  // static root → dense id (-1: none yet); roots are terminal ids
-  const rootDense = new Int32Array(n).fill(-1);
+  // static root → dense id (-1: none yet); roots are terminal ids. Scratch: builds are synchronous.
+  if (rootBuffer.length < n) rootBuffer = new Int32Array(n);
+  const rootDense = rootBuffer.subarray(0, n).fill(-1);
   let denseCount = 0;
   const mark = (t: number): number => {
     const r = staticRoot[t];
@@ -742,27 +781,46 @@ function denseComponents(
     return d;
   };
   mark(ksu.gnd);
-  for (const l of ksu.lines) [l.t, l.r, l.a, l.l].forEach(mark);
-  for (const s of ksu.stations) [s.t, s.r].forEach(mark);
+  for (const l of ksu.lines) {
+    mark(l.t);
+    mark(l.r);
+    mark(l.a);
+    mark(l.l);
+  }
+  for (const s of ksu.stations) {
+    mark(s.t);
+    mark(s.r);
+  }
   for (const e of b.elements) {
     mark(e.a);
     mark(e.b);
   }
-  const hotList: ContactInfo[] = [];
+  let count = 0;
   for (const c of b.contacts) {
     const da = mark(c.a);
     const db = mark(c.b);
-    if (da !== db && c.mech >= 0) hotList.push(c);
+    if (da !== db && c.mech >= 0) count++;
+  }
+  const hot = {
+    ca: new Int32Array(count),
+    cb: new Int32Array(count),
+    cond: new Int32Array(count),
+    mech: new Int32Array(count),
+    key: new Int32Array(count),
+    count,
+  };
+  let k = 0;
+  for (const c of b.contacts) {
+    const da = dense[c.a];
+    const db = dense[c.b];
+    if (da === db || c.mech < 0) continue;
+    hot.ca[k] = da;
+    hot.cb[k] = db;
+    hot.cond[k] = c.cond;
+    hot.mech[k] = c.mech;
+    hot.key[k++] = c.key;
   }
   for (let i = 0; i < n; i++) if (dense[i] < 0) dense[i] = rootDense[staticRoot[i]];
-  const hot = {
-    ca: Int32Array.from(hotList, (c) => dense[c.a]),
-    cb: Int32Array.from(hotList, (c) => dense[c.b]),
-    cond: Int32Array.from(hotList, (c) => c.cond),
-    mech: Int32Array.from(hotList, (c) => c.mech),
-    key: Int32Array.from(hotList, (c) => c.key),
-    count: hotList.length,
-  };
   return { dense, denseCount, hot };
 }
 

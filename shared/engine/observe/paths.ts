@@ -1,7 +1,7 @@
 /** Conductor paths: breadth-first search over wires and (optionally) the contacts closed in one state. */
 import { pairColour } from '../document/cable-code';
-import type { Netlist, PartInfo } from '../model/netlist';
-import { contactClosed, isContactClosed, type Mech } from '../model/nets';
+import type { Edge, Netlist, PartInfo, TerminalInfo } from '../model/netlist';
+import { contactClosed, type Mech } from '../model/nets';
 import type { LeadSpec } from '../templates/template.types';
 import type { Hop } from './evaluation.types';
 
@@ -23,43 +23,51 @@ function adjacency(nl: Netlist): Adjacency {
   let adj = adjacencyCache.get(nl);
   if (adj) return adj;
   const n = nl.terminals.length;
-  const degree = new Int32Array(n + 1);
-  for (const e of nl.edges) {
-    degree[e.a + 1]++;
-    degree[e.b + 1]++;
+  const edges = nl.edges;
+  const m = edges.length;
+  const offset = new Int32Array(n + 1);
+  for (let i = 0; i < m; i++) {
+    const e = edges[i];
+    offset[e.a + 1]++;
+    offset[e.b + 1]++;
   }
-  for (let i = 0; i < n; i++) degree[i + 1] += degree[i];
-  const offset = degree.slice();
-  const fill = degree.slice();
-  const to = new Int32Array(nl.edges.length * 2);
-  const edge = new Int32Array(nl.edges.length * 2);
-  const contact = new Int32Array(nl.edges.length * 2);
-  nl.edges.forEach((e, i) => {
-    const c = e.kind === 'contact' ? e.contact! : -1;
-    to[fill[e.a]] = e.b;
-    contact[fill[e.a]] = c;
-    edge[fill[e.a]++] = i;
-    to[fill[e.b]] = e.a;
-    contact[fill[e.b]] = c;
-    edge[fill[e.b]++] = i;
-  });
-  adj = {
-    offset,
-    to,
-    edge,
-    contact,
-    cond: Int32Array.from(nl.contacts, (c) => c.cond),
-    mech: Int32Array.from(nl.contacts, (c) => c.mech),
-    key: Int32Array.from(nl.contacts, (c) => c.key),
-  };
+  for (let i = 0; i < n; i++) offset[i + 1] += offset[i];
+  const fill = offset.slice(0, n);
+  const to = new Int32Array(m * 2);
+  const edge = new Int32Array(m * 2);
+  const contact = new Int32Array(m * 2);
+  for (let i = 0; i < m; i++) {
+    const e = edges[i];
+    const c = e.contact ?? -1;
+    let k = fill[e.a]++;
+    to[k] = e.b;
+    contact[k] = c;
+    edge[k] = i;
+    k = fill[e.b]++;
+    to[k] = e.a;
+    contact[k] = c;
+    edge[k] = i;
+  }
+  const nc = nl.contacts.length;
+  const cond = new Int32Array(nc);
+  const mech = new Int32Array(nc);
+  const key = new Int32Array(nc);
+  for (let i = 0; i < nc; i++) {
+    const c = nl.contacts[i];
+    cond[i] = c.cond;
+    mech[i] = c.mech;
+    key[i] = c.key;
+  }
+  adj = { offset, to, edge, contact, cond, mech, key };
   adjacencyCache.set(nl, adj);
   return adj;
 }
 
 /**
- * Scratch arrays for a PathFinder, one per terminal. The breadth-first trees of one finder never share a terminal
- * (each stays inside its own net), so they share prev / prevEdge; a finder hands them back cleared (release), and
- * the next finder on the netlist takes them instead of allocating.
+ * Scratch arrays for a PathFinder, one entry per terminal. The breadth-first trees of one finder never share a
+ * terminal (each stays inside its own net), so they share prev / prevEdge; a finder hands them back cleared
+ * (release), and the next finder takes them instead of allocating, on this netlist or any other no larger (an edit
+ * makes a new netlist of about the same size).
  */
 interface Scratch {
   prev: Int32Array;
@@ -69,12 +77,17 @@ interface Scratch {
   stamp: number;
 }
 
-const scratchPool = new WeakMap<Netlist, Scratch[]>();
+const scratchPool: Scratch[] = [];
+/** Enough for the finders alive at once (one per evaluation in progress, and findPath). */
+const SCRATCH_POOL_MAX = 4;
 
 function takeScratch(nl: Netlist): Scratch {
-  const pooled = scratchPool.get(nl)?.pop();
-  if (pooled) return pooled;
   const n = nl.terminals.length;
+  for (let i = scratchPool.length - 1; i >= 0; i--) {
+    if (scratchPool[i].prev.length < n) continue;
+    const [sc] = scratchPool.splice(i, 1);
+    return sc;
+  }
   return {
     prev: new Int32Array(n).fill(-1),
     prevEdge: new Int32Array(n).fill(-1),
@@ -84,14 +97,10 @@ function takeScratch(nl: Netlist): Scratch {
   };
 }
 
-/** Scratch handed back cleared (prev and prevEdge all -1), for the next finder or path on the netlist. */
-function giveBack(nl: Netlist, sc: Scratch): void {
-  let pool = scratchPool.get(nl);
-  if (!pool) {
-    pool = [];
-    scratchPool.set(nl, pool);
-  }
-  pool.push(sc);
+/** Scratch handed back cleared (prev and prevEdge all -1), for the next finder or path. */
+function giveBack(sc: Scratch): void {
+  if (scratchPool.length >= SCRATCH_POOL_MAX) scratchPool.shift();
+  scratchPool.push(sc);
 }
 
 export interface TerminalPath {
@@ -114,8 +123,8 @@ export function findPath(nl: Netlist, from: number, to: number, mech: Mech | nul
     for (let k = adj.offset[t]; k < adj.offset[t + 1]; k++) {
       const next = adj.to[k];
       if (prev[next] !== -1) continue;
-      const e = nl.edges[adj.edge[k]];
-      if (e.kind === 'contact' && (!mech || !isContactClosed(nl.contacts[e.contact!], mech))) continue;
+      const c = adj.contact[k];
+      if (c >= 0 && (!mech || !contactClosed(adj.cond[c], adj.mech[c], adj.key[c], mech))) continue;
       prev[next] = t;
       prevEdge[next] = adj.edge[k];
       queue.push(next);
@@ -132,7 +141,7 @@ export function findPath(nl: Netlist, from: number, to: number, mech: Mech | nul
     found = { terms: terms.reverse(), edges: edges.reverse() };
   }
   for (let i = 0; i < queue.length; i++) prev[queue[i]] = prevEdge[queue[i]] = -1;
-  giveBack(nl, sc);
+  giveBack(sc);
   return found;
 }
 
@@ -186,7 +195,7 @@ export class PathFinder {
       }
     }
     this.trees.clear();
-    giveBack(this.nl, sc);
+    giveBack(sc);
   }
 
   /**
@@ -291,6 +300,11 @@ function portLabel(part: PartInfo, port: string): string {
 }
 
 const textCache = new WeakMap<Netlist, (string | undefined)[]>();
+/**
+ * Across netlists, by terminal object: a part wired as before (a cached wiring, model/netlist.ts) brings the same
+ * terminal objects, of a part with the same name, template and (for the KSU) stations, so the same text.
+ */
+const textByTerminal = new WeakMap<TerminalInfo, string>();
 
 export function terminalText(nl: Netlist, term: number): string {
   let texts = textCache.get(nl);
@@ -298,7 +312,14 @@ export function terminalText(nl: Netlist, term: number): string {
     texts = [];
     textCache.set(nl, texts);
   }
-  return (texts[term] ??= describeTerminal(nl, term));
+  let text = texts[term];
+  if (text === undefined) {
+    const t = nl.terminals[term];
+    text = textByTerminal.get(t);
+    if (text === undefined) textByTerminal.set(t, (text = describeTerminal(nl, term)));
+    texts[term] = text;
+  }
+  return text;
 }
 
 function describeTerminal(nl: Netlist, term: number): string {
@@ -320,6 +341,26 @@ function describeTerminal(nl: Netlist, term: number): string {
 
 const hopCache = new WeakMap<Netlist, (Map<number, Hop> | undefined)[]>();
 
+/**
+ * Across netlists, by the objects a hop is made of: the terminal and the wires before and after it (objects a
+ * cached wiring shares between netlists only where ids, labels and parts are as before). NO_EDGE stands for none.
+ */
+const NO_EDGE = {} as Edge;
+const hopByObjects = new WeakMap<TerminalInfo, WeakMap<Edge, WeakMap<Edge, Hop>>>();
+
+function sharedHop(nl: Netlist, path: TerminalPath, i: number): Hop {
+  const t = nl.terminals[path.terms[i]];
+  const via = i > 0 ? nl.edges[path.edges[i - 1]] : NO_EDGE;
+  const next = i < path.edges.length ? nl.edges[path.edges[i]] : NO_EDGE;
+  let byVia = hopByObjects.get(t);
+  if (!byVia) hopByObjects.set(t, (byVia = new WeakMap()));
+  let byNext = byVia.get(via);
+  if (!byNext) byVia.set(via, (byNext = new WeakMap()));
+  let hop = byNext.get(next);
+  if (!hop) byNext.set(next, (hop = makeHop(nl, path, i)));
+  return hop;
+}
+
 /** Hops depend only on the terminal and the wire or contact that reached it, so they are made once per netlist. */
 export function toHops(nl: Netlist, path: TerminalPath): Hop[] {
   let cache = hopCache.get(nl);
@@ -338,7 +379,7 @@ export function toHops(nl: Netlist, path: TerminalPath): Hop[] {
     const byEdges = (cache[term] ??= new Map());
     let hop = byEdges.get(key);
     if (!hop) {
-      hop = makeHop(nl, path, i);
+      hop = sharedHop(nl, path, i);
       byEdges.set(key, hop);
     }
     hops[i] = hop;
