@@ -146,20 +146,48 @@ export function findPath(nl: Netlist, from: number, to: number, mech: Mech | nul
 }
 
 /**
- * Paths in one state from a few sources to many targets: one breadth-first tree per source, kept for the
- * evaluation (findings of one evaluation start from a handful of KSU terminals).
+ * A whole breadth-first tree of one net, kept between evaluations of the netlist. It is the same tree in any state
+ * where each contact next to one of its terminals is as it was (open or closed): wires never change, so the search
+ * then visits the same terminals in the same order. Paths read off it are kept with it.
+ */
+interface Tree {
+  root: number;
+  /** Terminals in breadth-first order, and for each its parent terminal and the edge from it. */
+  queue: Int32Array;
+  prev: Int32Array;
+  prevEdge: Int32Array;
+  /** Every contact next to a terminal of the tree, and whether it was closed. */
+  contacts: Int32Array;
+  closed: Uint8Array;
+  /** Keyed by from × terminal count + to. */
+  paths: Map<number, TerminalPath | null>;
+}
+
+/** Trees kept per netlist and root terminal, most recent last. */
+const treeCache = new WeakMap<Netlist, Map<number, Tree[]>>();
+/** Trees kept per root: a few states' worth (a net keeps its tree while the sets on it stay as they are). */
+const TREES_PER_ROOT = 4;
+/** Roots kept per netlist (least recently used go first). */
+const ROOTS_MAX = 256;
+
+let growQueue = new Int32Array(0);
+let grownContacts: number[] = [];
+
+/**
+ * Paths in one state from a few sources to many targets: one breadth-first tree per net, rooted at the first
+ * terminal asked for in it (findings of one evaluation start from a handful of KSU terminals), taken from an
+ * earlier evaluation when it still holds (see Tree).
  */
 export class PathFinder {
   private readonly trees = new Map<number, Tree>();
   /** Keyed by from × terminal count + to. */
   private readonly paths = new Map<number, TerminalPath | null>();
-  private readonly hops = new Map<TerminalPath, Hop[]>();
   private scratch: Scratch | null = null;
   private readonly adj: Adjacency;
 
   /**
-   * roots: the state's dense-component roots (from computeFacts), so the search stays inside the source's net;
-   * null with mech null: wires only, inside the source's static component.
+   * roots: the state's dense-component roots (from computeFacts), to tell which net a terminal is on; null with
+   * mech null: wires only, nets are the static components.
    */
   constructor(
     private readonly nl: Netlist,
@@ -173,7 +201,7 @@ export class PathFinder {
     const key = from * this.nl.terminals.length + to;
     const known = this.paths.get(key);
     if (known !== undefined) return known;
-    const found = this.trace(from, to);
+    const found = this.trace(from, to, key);
     this.paths.set(key, found);
     return found;
   }
@@ -198,28 +226,36 @@ export class PathFinder {
     giveBack(sc);
   }
 
-  /**
-   * One breadth-first tree per net, rooted at the first terminal asked for in it; a path between two terminals of
-   * the net runs up the tree from one to their lowest common ancestor and down to the other.
-   */
-  private trace(from: number, to: number): TerminalPath | null {
+  /** The path between two terminals of one net: up the net's tree from one to their lowest common ancestor and down. */
+  private trace(from: number, to: number, key: number): TerminalPath | null {
     const net = this.netOf(from);
     if (net !== this.netOf(to)) return null;
     const sc = (this.scratch ??= takeScratch(this.nl));
     const { prev, prevEdge } = sc;
     let tree = this.trees.get(net);
     if (!tree) {
-      prev[from] = from;
-      tree = { queue: [from], head: 0 };
+      tree = this.treeFrom(from);
       this.trees.set(net, tree);
+      // into the scratch arrays, for the walks up the tree
+      const { queue } = tree;
+      for (let k = 0; k < queue.length; k++) {
+        prev[queue[k]] = tree.prev[k];
+        prevEdge[queue[k]] = tree.prevEdge[k];
+      }
     }
-    this.growUntil(tree, from, net, prev, prevEdge);
-    this.growUntil(tree, to, net, prev, prevEdge);
-    if (prev[from] === -1 || prev[to] === -1) return null;
+    const known = tree.paths.get(key);
+    if (known !== undefined) return known;
+    let found: TerminalPath | null = null;
+    if (prev[from] !== -1 && prev[to] !== -1) found = this.walk(sc, from, to);
+    tree.paths.set(key, found);
+    return found;
+  }
+
+  private walk(sc: Scratch, from: number, to: number): TerminalPath {
+    const { prev, prevEdge, mark, position } = sc;
     const upFrom: number[] = [from];
     for (let t = from; prev[t] !== t; t = prev[t]) upFrom.push(prev[t]);
     const stamp = ++sc.stamp;
-    const { mark, position } = sc;
     for (let i = 0; i < upFrom.length; i++) {
       mark[upFrom[i]] = stamp;
       position[upFrom[i]] = i;
@@ -247,49 +283,97 @@ export class PathFinder {
 
   /** Hops of a path this finder returned; findings that share a path share one list. */
   hopsOf(path: TerminalPath): Hop[] {
-    let hops = this.hops.get(path);
-    if (!hops) {
-      hops = toHops(this.nl, path);
-      this.hops.set(path, hops);
-    }
-    return hops;
+    return hopsOfPath(this.nl, path);
   }
 
-  /** Breadth-first, resumable: grow the tree only until the target is reached. */
-  private growUntil(tree: Tree, target: number, net: number, prev: Int32Array, prevEdge: Int32Array): void {
-    if (prev[target] !== -1) return;
-    const { nl, mech } = this;
-    const { offset, to, edge, contact, cond, mech: owner, key } = this.adj;
-    const { queue } = tree;
-    const { dense, staticRoot } = nl;
-    const roots = this.roots;
-    let head = tree.head;
-    while (prev[target] === -1 && head < queue.length) {
-      const t = queue[head++];
+  /** The tree rooted at `root` in this state: a kept one that still holds, else grown now and kept. */
+  private treeFrom(root: number): Tree {
+    let byRoot = treeCache.get(this.nl);
+    if (!byRoot) treeCache.set(this.nl, (byRoot = new Map()));
+    const kept = byRoot.get(root);
+    if (kept) {
+      byRoot.delete(root);
+      byRoot.set(root, kept);
+      for (let i = kept.length - 1; i >= 0; i--) if (this.holds(kept[i])) return kept[i];
+    }
+    const tree = this.grow(root);
+    const list = kept ?? [];
+    if (list.length >= TREES_PER_ROOT) list.shift();
+    list.push(tree);
+    if (!kept) {
+      if (byRoot.size >= ROOTS_MAX) byRoot.delete(byRoot.keys().next().value!);
+      byRoot.set(root, list);
+    }
+    return tree;
+  }
+
+  private closed(c: number): boolean {
+    const { cond, mech: owner, key } = this.adj;
+    return this.mech !== null && contactClosed(cond[c], owner[c], key[c], this.mech);
+  }
+
+  private holds(tree: Tree): boolean {
+    const { contacts, closed } = tree;
+    for (let k = 0; k < contacts.length; k++) if (this.closed(contacts[k]) !== (closed[k] === 1)) return false;
+    return true;
+  }
+
+  /** Breadth-first over wires and the contacts closed in this state, the whole net (the scratch is left clear). */
+  private grow(root: number): Tree {
+    const { offset, to, edge, contact } = this.adj;
+    const sc = (this.scratch ??= takeScratch(this.nl));
+    const { prev, prevEdge } = sc;
+    if (growQueue.length < this.nl.terminals.length) growQueue = new Int32Array(this.nl.terminals.length);
+    const queue = growQueue;
+    const contacts = grownContacts;
+    contacts.length = 0;
+    let tail = 0;
+    queue[tail++] = root;
+    prev[root] = root;
+    for (let head = 0; head < tail; head++) {
+      const t = queue[head];
       const end = offset[t + 1];
       for (let k = offset[t]; k < end; k++) {
+        const c = contact[k];
+        if (c >= 0) {
+          contacts.push(c);
+          if (!this.closed(c)) continue;
+        }
         const next = to[k];
         if (prev[next] !== -1) continue;
-        // A path between two terminals never leaves their net.
-        if (roots !== null) {
-          const d = dense[next];
-          if (d < 0 || roots[d] !== net) continue;
-        } else if (staticRoot[next] !== net) continue;
-        const c = contact[k];
-        if (c >= 0 && (mech === null || !contactClosed(cond[c], owner[c], key[c], mech))) continue;
         prev[next] = t;
         prevEdge[next] = edge[k];
-        queue.push(next);
+        queue[tail++] = next;
       }
     }
-    tree.head = head;
+    const tree: Tree = {
+      root,
+      queue: queue.slice(0, tail),
+      prev: new Int32Array(tail),
+      prevEdge: new Int32Array(tail),
+      contacts: Int32Array.from(contacts),
+      closed: new Uint8Array(contacts.length),
+      paths: new Map(),
+    };
+    for (let k = 0; k < tail; k++) {
+      const t = queue[k];
+      tree.prev[k] = prev[t];
+      tree.prevEdge[k] = prevEdge[t];
+      prev[t] = -1;
+      prevEdge[t] = -1;
+    }
+    for (let k = 0; k < contacts.length; k++) tree.closed[k] = this.closed(contacts[k]) ? 1 : 0;
+    return tree;
   }
 }
 
-interface Tree {
-  /** Terminals in breadth-first order; head: the next to expand. */
-  queue: number[];
-  head: number;
+const hopsByPath = new WeakMap<TerminalPath, Hop[]>();
+
+/** Hops of a path (a path belongs to one netlist); findings that share a path share one list. */
+function hopsOfPath(nl: Netlist, path: TerminalPath): Hop[] {
+  let hops = hopsByPath.get(path);
+  if (!hops) hopsByPath.set(path, (hops = toHops(nl, path)));
+  return hops;
 }
 
 const KSU_LEAD_NAMES: Record<string, string> = { T: 'tip', R: 'ring', A: 'A-lead', L: 'lamp lead' };
