@@ -38,6 +38,13 @@ export interface TerminalInfo {
 }
 
 export type EdgeKind = 'lead' | 'cable' | 'bridge' | 'cross-connect' | 'contact';
+/** Netlist.edgeKind codes: the index of the kind here. */
+export const EDGE_KINDS: readonly EdgeKind[] = ['lead', 'cable', 'bridge', 'cross-connect', 'contact'];
+export const KIND_LEAD = 0;
+export const KIND_CABLE = 1;
+export const KIND_BRIDGE = 2;
+export const KIND_CROSS_CONNECT = 3;
+export const KIND_CONTACT = 4;
 
 export interface Edge {
   a: number;
@@ -122,6 +129,11 @@ export interface Netlist {
   terminals: TerminalInfo[];
   /** Wires and contacts (contacts last). */
   edges: Edge[];
+  /** The edges' ends, kinds (EDGE_KINDS index) and contacts (-1: a wire) as flat arrays, for the loops over all. */
+  edgeA: Int32Array;
+  edgeB: Int32Array;
+  edgeKind: Uint8Array;
+  edgeContact: Int32Array;
   contacts: ContactInfo[];
   elements: ElementInfo[];
   /** Terminal → static component (root terminal id). */
@@ -741,14 +753,43 @@ function wireCables(b: Builder, plan: Plan): void {
   }
 }
 
+type FlatEdges = Pick<Netlist, 'edgeA' | 'edgeB' | 'edgeKind' | 'edgeContact'>;
+
+const KIND_CODE: Record<EdgeKind, number> = {
+  lead: KIND_LEAD,
+  cable: KIND_CABLE,
+  bridge: KIND_BRIDGE,
+  'cross-connect': KIND_CROSS_CONNECT,
+  contact: KIND_CONTACT,
+};
+
+/** One pass over the edge objects; every later loop over all edges reads these. */
+function flatEdges(edges: readonly Edge[]): FlatEdges {
+  const m = edges.length;
+  const flat = {
+    edgeA: new Int32Array(m),
+    edgeB: new Int32Array(m),
+    edgeKind: new Uint8Array(m),
+    edgeContact: new Int32Array(m),
+  };
+  for (let i = 0; i < m; i++) {
+    const e = edges[i];
+    flat.edgeA[i] = e.a;
+    flat.edgeB[i] = e.b;
+    flat.edgeKind[i] = KIND_CODE[e.kind];
+    flat.edgeContact[i] = e.contact ?? -1;
+  }
+  return flat;
+}
+
 /** Wires never change with the state, so their connectivity is solved once: terminal → static root. */
-function staticComponents(n: number, edges: readonly Edge[]): Int32Array {
+function staticComponents(n: number, flat: FlatEdges, wires: number): Int32Array {
   const parent = new Int32Array(n);
   for (let i = 0; i < n; i++) parent[i] = i;
-  for (let k = 0; k < edges.length; k++) {
-    const e = edges[k];
-    const ra = find(parent, e.a);
-    const rb = find(parent, e.b);
+  const { edgeA, edgeB } = flat;
+  for (let k = 0; k < wires; k++) {
+    const ra = find(parent, edgeA[k]);
+    const rb = find(parent, edgeB[k]);
     if (ra !== rb) parent[ra] = rb;
   }
   // in place: every entry becomes its root
@@ -839,7 +880,9 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
   const adapterParts = addAdapters(b, plan);
   wireParts(b, plan, sets, addOnParts, adapterParts);
   wireCables(b, plan);
-  const staticRoot = staticComponents(b.terminals.length, b.edges);
+  const edges = b.edges.concat(b.contactEdges);
+  const flat = flatEdges(edges);
+  const staticRoot = staticComponents(b.terminals.length, flat, b.edges.length);
   const { dense, denseCount, hot } = denseComponents(b, ksu, staticRoot);
   return {
     plan,
@@ -851,7 +894,8 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
     stations: ksu.stations,
     gnd: ksu.gnd,
     terminals: b.terminals,
-    edges: b.edges.concat(b.contactEdges),
+    edges,
+    ...flat,
     contacts: b.contacts,
     elements: b.elements,
     staticRoot,

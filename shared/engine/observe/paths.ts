@@ -23,13 +23,12 @@ function adjacency(nl: Netlist): Adjacency {
   let adj = adjacencyCache.get(nl);
   if (adj) return adj;
   const n = nl.terminals.length;
-  const edges = nl.edges;
-  const m = edges.length;
+  const { edgeA, edgeB, edgeContact } = nl;
+  const m = edgeA.length;
   const offset = new Int32Array(n + 1);
   for (let i = 0; i < m; i++) {
-    const e = edges[i];
-    offset[e.a + 1]++;
-    offset[e.b + 1]++;
+    offset[edgeA[i] + 1]++;
+    offset[edgeB[i] + 1]++;
   }
   for (let i = 0; i < n; i++) offset[i + 1] += offset[i];
   const fill = offset.slice(0, n);
@@ -37,14 +36,15 @@ function adjacency(nl: Netlist): Adjacency {
   const edge = new Int32Array(m * 2);
   const contact = new Int32Array(m * 2);
   for (let i = 0; i < m; i++) {
-    const e = edges[i];
-    const c = e.contact ?? -1;
-    let k = fill[e.a]++;
-    to[k] = e.b;
+    const a = edgeA[i];
+    const b = edgeB[i];
+    const c = edgeContact[i];
+    let k = fill[a]++;
+    to[k] = b;
     contact[k] = c;
     edge[k] = i;
-    k = fill[e.b]++;
-    to[k] = e.a;
+    k = fill[b]++;
+    to[k] = a;
     contact[k] = c;
     edge[k] = i;
   }

@@ -3,7 +3,14 @@
  * cross-connect: wiring that is wrong in every state, whatever the keys and hookswitches do.
  */
 import { pairColour } from '../../document/cable-code';
-import type { Netlist, PartInfo } from '../../model/netlist';
+import {
+  KIND_BRIDGE,
+  KIND_CABLE,
+  KIND_CROSS_CONNECT,
+  KIND_LEAD,
+  type Netlist,
+  type PartInfo,
+} from '../../model/netlist';
 import type { Finding } from '../evaluation.types';
 import { findPath, firstCrossing, crossingSentence, toHops } from '../paths';
 import type { WiringRule } from '../rule.types';
@@ -42,29 +49,36 @@ function collect(nl: Netlist): Shared[] {
     while (parent[x] !== x) x = parent[x] = parent[parent[x]];
     return x;
   };
-  for (const e of edges) {
-    if (e.kind === 'cable' || e.kind === 'bridge') parent[find(e.a)] = find(e.b);
+  const { edgeA, edgeB, edgeKind } = nl;
+  const m = edgeA.length;
+  for (let k = 0; k < m; k++) {
+    const kind = edgeKind[k];
+    if (kind === KIND_CABLE || kind === KIND_BRIDGE) parent[find(edgeA[k])] = find(edgeB[k]);
   }
   // Per conductor (root): the part terminals wired to it, in edge order, as a linked list over the wired edges.
   const first = buffer.subarray(n, 2 * n).fill(-1);
   const last = buffer.subarray(2 * n, 3 * n);
   const next: number[] = [];
   const attachedTerm: number[] = [];
-  for (const e of edges) {
-    if (e.kind !== 'lead' && e.kind !== 'cross-connect') continue;
-    const aIsPin = terminals[e.a].pin !== undefined;
-    const term = aIsPin ? e.b : e.a;
-    const r = find(aIsPin ? e.a : e.b);
-    const k = attachedTerm.length;
+  const privateLeads: number[] = [];
+  for (let k = 0; k < m; k++) {
+    const kind = edgeKind[k];
+    if (kind !== KIND_LEAD && kind !== KIND_CROSS_CONNECT) continue;
+    if (kind === KIND_LEAD && edges[k].lead?.scope === 'private') privateLeads.push(k);
+    const a = edgeA[k];
+    const aIsPin = terminals[a].pin !== undefined;
+    const term = aIsPin ? edgeB[k] : a;
+    const r = find(aIsPin ? a : edgeB[k]);
+    const at = attachedTerm.length;
     attachedTerm.push(term);
     next.push(-1);
-    if (first[r] < 0) first[r] = k;
-    else next[last[r]] = k;
-    last[r] = k;
+    if (first[r] < 0) first[r] = at;
+    else next[last[r]] = at;
+    last[r] = at;
   }
   const found = new Map<number, Shared>();
-  for (const e of edges) {
-    if (e.kind !== 'lead' || e.lead?.scope !== 'private') continue;
+  for (const k of privateLeads) {
+    const e = edges[k];
     const owner = parts[terminals[e.a].part];
     const pinPair = terminals[e.b].pair!;
     for (let k = first[find(e.b)]; k >= 0; k = next[k]) {
