@@ -70,7 +70,16 @@ export function withWiringSymptoms(nl: Netlist, facts: NetFacts, ev: Evaluation)
   if (!polarised.length && !splits.length) return ev;
   const { roots, rootT, rootR } = facts;
   const root = (t: number) => (nl.dense[t] >= 0 ? roots[nl.dense[t]] : -1 - t);
-  const note = (owner: number, text: string) => (ev.sets[owner].notes ??= []).push(text);
+  // Observations may be kept from an earlier evaluation (observations.ts): what changes here is a copy.
+  const copiedSets = new Set<number>();
+  const note = (owner: number, text: string) => {
+    if (!copiedSets.has(owner)) {
+      copiedSets.add(owner);
+      const obs = ev.sets[owner];
+      ev.sets[owner] = { ...obs, ...(obs.notes ? { notes: [...obs.notes] } : {}) };
+    }
+    (ev.sets[owner].notes ??= []).push(text);
+  };
 
   for (const { element: e, fails } of polarised) {
     const ra = root(e.a);
