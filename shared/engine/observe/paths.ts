@@ -180,6 +180,8 @@ let grownContacts: number[] = [];
  */
 export class PathFinder {
   private readonly trees = new Map<number, Tree>();
+  /** Trees whose parents are in the scratch arrays (only those a new path is walked on). */
+  private readonly loaded: Tree[] = [];
   /** Keyed by from × terminal count + to. */
   private readonly paths = new Map<number, TerminalPath | null>();
   private scratch: Scratch | null = null;
@@ -215,13 +217,14 @@ export class PathFinder {
     if (!sc) return;
     this.scratch = null;
     const { prev, prevEdge } = sc;
-    for (const tree of this.trees.values()) {
+    for (const tree of this.loaded) {
       const { queue } = tree;
       for (let i = 0; i < queue.length; i++) {
         prev[queue[i]] = -1;
         prevEdge[queue[i]] = -1;
       }
     }
+    this.loaded.length = 0;
     this.trees.clear();
     giveBack(sc);
   }
@@ -230,21 +233,24 @@ export class PathFinder {
   private trace(from: number, to: number, key: number): TerminalPath | null {
     const net = this.netOf(from);
     if (net !== this.netOf(to)) return null;
-    const sc = (this.scratch ??= takeScratch(this.nl));
-    const { prev, prevEdge } = sc;
     let tree = this.trees.get(net);
     if (!tree) {
       tree = this.treeFrom(from);
       this.trees.set(net, tree);
+    }
+    const known = tree.paths.get(key);
+    if (known !== undefined) return known;
+    const sc = (this.scratch ??= takeScratch(this.nl));
+    const { prev, prevEdge } = sc;
+    if (!this.loaded.includes(tree)) {
       // into the scratch arrays, for the walks up the tree
+      this.loaded.push(tree);
       const { queue } = tree;
       for (let k = 0; k < queue.length; k++) {
         prev[queue[k]] = tree.prev[k];
         prevEdge[queue[k]] = tree.prevEdge[k];
       }
     }
-    const known = tree.paths.get(key);
-    if (known !== undefined) return known;
     let found: TerminalPath | null = null;
     if (prev[from] !== -1 && prev[to] !== -1) found = this.walk(sc, from, to);
     tree.paths.set(key, found);

@@ -54,9 +54,16 @@ export function describeVia(f: FindingFacts, p: TerminalPath): string {
 /** ": Front's talk pair … is bridged to Back's", or " along Front, Back", or "" without a path. */
 export function joinSentence(nl: Netlist, p: TerminalPath | null): string | null {
   if (!p) return null;
-  const crossing = firstCrossing(nl, p);
-  return crossing ? `: ${crossingSentence(crossing)}` : ` along ${unitsAlong(nl, p).join(', ')}`;
+  let text = joinByPath.get(p);
+  if (text === undefined) {
+    const crossing = firstCrossing(nl, p);
+    text = crossing ? `: ${crossingSentence(crossing)}` : ` along ${unitsAlong(nl, p).join(', ')}`;
+    joinByPath.set(p, text);
+  }
+  return text;
 }
+
+const joinByPath = new WeakMap<TerminalPath, string>();
 
 /** Sets with a line key down on one of these lines: the sets whose keys do the joining. */
 export function latchedOn(f: FindingFacts, lines: readonly number[]): SetInfo[] {
