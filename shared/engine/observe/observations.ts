@@ -209,6 +209,29 @@ interface Loads {
 
 const loadScratch = new WeakMap<Netlist, Omit<Loads, 'buzzerOn'>>();
 
+const LOAD_NONE = 0;
+const LOAD_BUZZER = 1;
+const LOAD_RINGER = 2;
+const LOAD_LAMP = 3;
+
+/** Per element: what kind of load the observations read it as (none: a network, or no owner), its ends' dense ids. */
+const loadCache = new WeakMap<Netlist, { kind: Uint8Array; a: Int32Array; b: Int32Array; owner: Int32Array }>();
+
+function loadsOf(nl: Netlist) {
+  let loads = loadCache.get(nl);
+  if (!loads) {
+    const code = { buzzer: LOAD_BUZZER, ringer: LOAD_RINGER, lamp: LOAD_LAMP, network: LOAD_NONE };
+    loads = {
+      kind: Uint8Array.from(nl.elements, (e) => (e.owner < 0 ? LOAD_NONE : code[e.kind])),
+      a: Int32Array.from(nl.elements, (e) => nl.dense[e.a]),
+      b: Int32Array.from(nl.elements, (e) => nl.dense[e.b]),
+      owner: Int32Array.from(nl.elements, (e) => e.owner),
+    };
+    loadCache.set(nl, loads);
+  }
+  return loads;
+}
+
 function observeLoads(
   nl: Netlist,
   state: SimState,
@@ -238,22 +261,26 @@ function observeLoads(
   lampLines.fill(0);
   const buzzerOn: boolean[] = new Array(nSets).fill(false);
   const g = facts.gnd;
-  for (let k = 0; k < nl.elements.length; k++) {
-    const e = nl.elements[k];
-    if (e.owner < 0) continue;
-    const ra = roots[d[e.a]];
-    const rb = roots[d[e.b]];
+  let ringing = false;
+  for (let i = 0; i < nLines && !ringing; i++) ringing = !!lineStates[i]?.ringing;
+  const { kind, a, b, owner } = loadsOf(nl);
+  for (let k = 0; k < kind.length; k++) {
+    const what = kind[k];
+    if (what === LOAD_NONE) continue;
+    const ra = roots[a[k]];
+    const rb = roots[b[k]];
     if (ra === rb) continue; // a shorted load never sounds or lights
-    if (e.kind === 'buzzer') {
+    if (what === LOAD_BUZZER) {
       if (driven && ((ra === drivenT && rb === drivenR) || (ra === drivenR && rb === drivenT)))
-        buzzerOn[e.owner] = true;
-    } else if (e.kind === 'ringer') {
+        buzzerOn[owner[k]] = true;
+    } else if (what === LOAD_RINGER) {
+      if (!ringing) continue;
       for (let i = 0; i < nLines; i++) {
         const x = facts.rootT[i];
         const y = facts.rootR[i];
-        if (lineStates[i]?.ringing && ((ra === x && rb === y) || (ra === y && rb === x))) ringerOn[e.owner] = 1;
+        if (lineStates[i]?.ringing && ((ra === x && rb === y) || (ra === y && rb === x))) ringerOn[owner[k]] = 1;
       }
-    } else if (e.kind === 'lamp') {
+    } else {
       // lit by the lines whose lamp lead is on one end while ground is on the other
       const lead = ra === g ? rb : rb === g ? ra : -1;
       if (lead < 0) continue;
