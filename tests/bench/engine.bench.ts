@@ -109,7 +109,10 @@ async function main(): Promise<void> {
     const state = busyState(plan);
     const floor = await measure(floorFor(plan, state), { batch: 200, warmUp: 2000 });
     const warm = await measure(() => evaluate(plan, state), { batch: 20, warmUp: 500 });
-    const warmNoPaths = await measure(() => evaluate(plan, state, { paths: false }), { batch: 20, warmUp: 500 });
+    const warmNoPaths = await measure(() => evaluate(plan, state, { paths: false }), {
+      batch: 20,
+      warmUp: 500,
+    });
     const edited = editor(plan);
     const afterEdit = await measure(() => evaluate(edited(), state), { batch: 5, warmUp: 200 });
     row(`floor, ${name}`, floor);

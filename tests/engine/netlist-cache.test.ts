@@ -46,7 +46,10 @@ const replaceAt = <T>(xs: readonly T[], i: number, x: T): T[] => xs.map((y, j) =
 
 /** Ports a cable end may move to: the KSU's station ports and every port of every part's template. */
 function ends(plan: Plan): { part: string; port: string }[] {
-  const out = Array.from({ length: plan.ksu.ports }, (_, i) => ({ part: plan.ksu.id, port: `port-${i + 1}` }));
+  const out = Array.from({ length: plan.ksu.ports }, (_, i) => ({
+    part: plan.ksu.id,
+    port: `port-${i + 1}`,
+  }));
   for (const p of [...plan.sets, ...plan.addOns, ...plan.adapters])
     for (const pt of getTemplate(p.template)?.ports ?? []) out.push({ part: p.id, port: pt.name });
   return out;

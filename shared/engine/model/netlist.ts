@@ -358,7 +358,11 @@ function ksuTerminals(b: Builder, plan: Plan, ksuPart: PartInfo): KsuTerminals {
 /** The KSU cross-connect: which line-circuit lead or buzzer output each pair of each station port carries. */
 function wireCrossConnect(b: Builder, plan: Plan, ksu: KsuTerminals): void {
   const { ksuPart, gnd } = ksu;
-  allPins(b, ksuPart.index, Array.from({ length: plan.ksu.ports }, (_, i) => ksuPortName(i + 1)));
+  allPins(
+    b,
+    ksuPart.index,
+    Array.from({ length: plan.ksu.ports }, (_, i) => ksuPortName(i + 1)),
+  );
   const lineByNumber = new Map(ksu.lines.map((l) => [l.number, l]));
   const stationById = new Map(ksu.stations.map((s) => [s.id, s]));
   for (const cc of effectiveCrossConnect(plan.ksu)) {
@@ -524,7 +528,11 @@ function wirePart(
 ): void {
   const tpl = p.template;
   if (!tpl) return;
-  allPins(b, p.index, tpl.ports.map((pt) => pt.name));
+  allPins(
+    b,
+    p.index,
+    tpl.ports.map((pt) => pt.name),
+  );
   wireLeads(b, p, tpl, changes);
   wireBridges(b, p, tpl, bridgedPairs);
   addContacts(b, p, tpl, ownerSet);
@@ -653,7 +661,13 @@ function wireCached(b: Builder, p: PartInfo, data: object, ownerSet: number, wir
     wiringByObject.set(data, { at, wiring: hit });
     return pushWiring(b, p, hit);
   }
-  const from = [b.terminals.length, b.edges.length, b.contactEdges.length, b.contacts.length, b.elements.length];
+  const from = [
+    b.terminals.length,
+    b.edges.length,
+    b.contactEdges.length,
+    b.contacts.length,
+    b.elements.length,
+  ];
   wire();
   const names = b.names[p.index];
   const pins = b.pinIds[p.index];
@@ -718,15 +732,14 @@ const cableByObject = new WeakMap<object, { at: string; edges: Edge[] }>();
 function cableEdges(b: Builder, c: Plan['cables'][number], from: PartInfo, to: PartInfo): Edge[] {
   const wire = () =>
     // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
-    cableWires(c).map(
-      (w): Edge =>
-        edge(
-          pinTerm(b, from.index, c.from.port, w.fromPin),
-          pinTerm(b, to.index, c.to.port, w.toPin),
-          'cable',
-          `cable ${c.label || c.id}${w.note}`,
-          { cable: c.id },
-        ),
+    cableWires(c).map((w): Edge =>
+      edge(
+        pinTerm(b, from.index, c.from.port, w.fromPin),
+        pinTerm(b, to.index, c.to.port, w.toPin),
+        'cable',
+        `cable ${c.label || c.id}${w.note}`,
+        { cable: c.id },
+      ),
     );
   const first = [pinTerm(b, from.index, c.from.port, 1), pinTerm(b, to.index, c.to.port, 1)];
   const last = [pinTerm(b, from.index, c.from.port, PIN_COUNT), pinTerm(b, to.index, c.to.port, PIN_COUNT)];

@@ -215,7 +215,10 @@ const LOAD_RINGER = 2;
 const LOAD_LAMP = 3;
 
 /** Per element: what kind of load the observations read it as (none: a network, or no owner), its ends' dense ids. */
-const loadCache = new WeakMap<Netlist, { kind: Uint8Array; a: Int32Array; b: Int32Array; owner: Int32Array }>();
+const loadCache = new WeakMap<
+  Netlist,
+  { kind: Uint8Array; a: Int32Array; b: Int32Array; owner: Int32Array }
+>();
 
 function loadsOf(nl: Netlist) {
   let loads = loadCache.get(nl);
@@ -278,7 +281,8 @@ function observeLoads(
       for (let i = 0; i < nLines; i++) {
         const x = facts.rootT[i];
         const y = facts.rootR[i];
-        if (lineStates[i]?.ringing && ((ra === x && rb === y) || (ra === y && rb === x))) ringerOn[owner[k]] = 1;
+        if (lineStates[i]?.ringing && ((ra === x && rb === y) || (ra === y && rb === x)))
+          ringerOn[owner[k]] = 1;
       }
     } else {
       // lit by the lines whose lamp lead is on one end while ground is on the other

@@ -171,7 +171,7 @@ const TREES_PER_ROOT = 4;
 const ROOTS_MAX = 256;
 
 let growQueue = new Int32Array(0);
-let grownContacts: number[] = [];
+const grownContacts: number[] = [];
 
 /**
  * Paths in one state from a few sources to many targets: one breadth-first tree per net, rooted at the first
@@ -320,7 +320,8 @@ export class PathFinder {
 
   private holds(tree: Tree): boolean {
     const { contacts, closed } = tree;
-    for (let k = 0; k < contacts.length; k++) if (this.closed(contacts[k]) !== (closed[k] === 1)) return false;
+    for (let k = 0; k < contacts.length; k++)
+      if (this.closed(contacts[k]) !== (closed[k] === 1)) return false;
     return true;
   }
 

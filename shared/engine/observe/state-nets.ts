@@ -46,4 +46,3 @@ export function computeNetsScratch(plan: Plan, state: SimState): StateNets {
   fillMech(nl, state, mech);
   return { mech, facts: computeFacts(nl, mech) };
 }
-

@@ -88,7 +88,10 @@ export function withWiringSymptoms(nl: Netlist, facts: NetFacts, ev: Evaluation)
     if (e.kind !== 'network') continue;
     for (const i of facts.hears[e.owner]) {
       if (ra === rootR[i] && rb === rootT[i])
-        note(e.owner, `On line ${nl.lines[i].number} ${fails} does not work: tip and ring reach it reversed.`);
+        note(
+          e.owner,
+          `On line ${nl.lines[i].number} ${fails} does not work: tip and ring reach it reversed.`,
+        );
     }
   }
 

@@ -32,7 +32,12 @@ export const breakIn: StateRule<'BREAK_IN'> = {
           onCall = onCallByLine[i] = nl.sets.filter(
             (o) => active[o.index] && selected[o.index].includes(line) && facts.hears[o.index].includes(i),
           );
-          onCallIds[i] = onCall.length ? listId(nl, onCall.map((o) => o.index)) : -1;
+          onCallIds[i] = onCall.length
+            ? listId(
+                nl,
+                onCall.map((o) => o.index),
+              )
+            : -1;
         }
         if (!onCall.length || (onCall.length === 1 && onCall[0] === s)) continue;
         const p = networkTip >= 0 ? pathIn(finder, nl.lines[i].t, networkTip) : null;

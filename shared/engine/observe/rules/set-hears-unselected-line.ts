@@ -26,7 +26,8 @@ export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
         const key = (s.index * nLines + i) * KEY_SLOTS + pressed;
         out.push(
           memoFinding(nl, 'SET_HEARS_UNSELECTED_LINE', key, p, () => {
-            const keyText = pressed > 0 ? `with line key ${selected.join(', ')} down` : 'with no line key down';
+            const keyText =
+              pressed > 0 ? `with line key ${selected.join(', ')} down` : 'with no line key down';
             const finding: Finding = {
               code: 'SET_HEARS_UNSELECTED_LINE',
               severity: 'fault',
