@@ -2,7 +2,7 @@
  * Electrical facts of one state, read off the nets: which A-leads are grounded, which lines have a loop,
  * which set hears which line. Shared by the state machine (applyAction) and the observations (evaluate).
  */
-import type { ElementInfo, Netlist } from './netlist';
+import { perNetlist, type ElementInfo, type Netlist } from './netlist';
 import { evaluateNets, type Mech } from './nets';
 
 export interface NetFacts {
@@ -31,21 +31,14 @@ interface Networks {
   owner: Int32Array;
 }
 
-const networkCache = new WeakMap<Netlist, Networks>();
-
-function networksOf(nl: Netlist): Networks {
-  let nets = networkCache.get(nl);
-  if (!nets) {
-    const list: ElementInfo[] = nl.elements.filter((e) => e.kind === 'network');
-    nets = {
-      a: Int32Array.from(list, (e) => nl.dense[e.a]),
-      b: Int32Array.from(list, (e) => nl.dense[e.b]),
-      owner: Int32Array.from(list, (e) => e.owner),
-    };
-    networkCache.set(nl, nets);
-  }
-  return nets;
-}
+const networksOf = perNetlist((nl): Networks => {
+  const list: ElementInfo[] = nl.elements.filter((e) => e.kind === 'network');
+  return {
+    a: Int32Array.from(list, (e) => nl.dense[e.a]),
+    b: Int32Array.from(list, (e) => nl.dense[e.b]),
+    owner: Int32Array.from(list, (e) => e.owner),
+  };
+});
 
 export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
   const roots = evaluateNets(nl, mech);

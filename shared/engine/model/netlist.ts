@@ -174,6 +174,16 @@ function terminalIndexOf(nl: Netlist): Map<string, number> {
   return index;
 }
 
+/** A value made from a netlist on first use and kept with it (a netlist never changes once built). */
+export function perNetlist<T>(make: (nl: Netlist) => T): (nl: Netlist) => T {
+  const made = new WeakMap<Netlist, T>();
+  return (nl) => {
+    let value = made.get(nl);
+    if (value === undefined) made.set(nl, (value = make(nl)));
+    return value;
+  };
+}
+
 function find(parent: Int32Array, x: number): number {
   while (parent[x] !== x) {
     parent[x] = parent[parent[x]];

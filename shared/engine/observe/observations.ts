@@ -1,6 +1,6 @@
 /** Observations of one state: per line (status, A-lead, loop, lamp, far end, joins), per set, per station. */
 import type { NetFacts } from '../model/facts';
-import type { Netlist } from '../model/netlist';
+import { perNetlist, type Netlist } from '../model/netlist';
 import type { Mech } from '../model/nets';
 import type { FarPhase, LineState, SimState } from '../sim/state.schema';
 import type {
@@ -215,25 +215,15 @@ const LOAD_RINGER = 2;
 const LOAD_LAMP = 3;
 
 /** Per element: what kind of load the observations read it as (none: a network, or no owner), its ends' dense ids. */
-const loadCache = new WeakMap<
-  Netlist,
-  { kind: Uint8Array; a: Int32Array; b: Int32Array; owner: Int32Array }
->();
-
-function loadsOf(nl: Netlist) {
-  let loads = loadCache.get(nl);
-  if (!loads) {
-    const code = { buzzer: LOAD_BUZZER, ringer: LOAD_RINGER, lamp: LOAD_LAMP, network: LOAD_NONE };
-    loads = {
-      kind: Uint8Array.from(nl.elements, (e) => (e.owner < 0 ? LOAD_NONE : code[e.kind])),
-      a: Int32Array.from(nl.elements, (e) => nl.dense[e.a]),
-      b: Int32Array.from(nl.elements, (e) => nl.dense[e.b]),
-      owner: Int32Array.from(nl.elements, (e) => e.owner),
-    };
-    loadCache.set(nl, loads);
-  }
-  return loads;
-}
+const loadsOf = perNetlist((nl) => {
+  const code = { buzzer: LOAD_BUZZER, ringer: LOAD_RINGER, lamp: LOAD_LAMP, network: LOAD_NONE };
+  return {
+    kind: Uint8Array.from(nl.elements, (e) => (e.owner < 0 ? LOAD_NONE : code[e.kind])),
+    a: Int32Array.from(nl.elements, (e) => nl.dense[e.a]),
+    b: Int32Array.from(nl.elements, (e) => nl.dense[e.b]),
+    owner: Int32Array.from(nl.elements, (e) => e.owner),
+  };
+});
 
 function observeLoads(
   nl: Netlist,

@@ -1,6 +1,6 @@
 /** Conductor paths: breadth-first search over wires and (optionally) the contacts closed in one state. */
 import { pairColour } from '../document/cable-code';
-import type { Edge, Netlist, PartInfo, TerminalInfo } from '../model/netlist';
+import { perNetlist, type Edge, type Netlist, type PartInfo, type TerminalInfo } from '../model/netlist';
 import { contactClosed, type Mech } from '../model/nets';
 import type { LeadSpec } from '../templates/template.types';
 import type { Hop } from './evaluation.types';
@@ -17,11 +17,7 @@ interface Adjacency {
   key: Int32Array;
 }
 
-const adjacencyCache = new WeakMap<Netlist, Adjacency>();
-
-function adjacency(nl: Netlist): Adjacency {
-  let adj = adjacencyCache.get(nl);
-  if (adj) return adj;
+const adjacency = perNetlist((nl): Adjacency => {
   const n = nl.terminals.length;
   const { edgeA, edgeB, edgeContact } = nl;
   const m = edgeA.length;
@@ -58,10 +54,8 @@ function adjacency(nl: Netlist): Adjacency {
     mech[i] = c.mech;
     key[i] = c.key;
   }
-  adj = { offset, to, edge, contact, cond, mech, key };
-  adjacencyCache.set(nl, adj);
-  return adj;
-}
+  return { offset, to, edge, contact, cond, mech, key };
+});
 
 /**
  * Scratch arrays for a PathFinder, one entry per terminal. The breadth-first trees of one finder never share a
