@@ -2,21 +2,26 @@
  * The netlist after an edit, built from part wirings cached by content, equals the netlist built from scratch, and
  * so do the evaluations on it. Engine design (model/netlist.ts): the cache is a speed-up only and may change no
  * answer. The edits are those the Bench makes, one part at a time: lead changes added and removed, a set's
- * template or ringer straps changed, a cable moved, a set added or removed.
+ * template or ringer straps changed, a cable moved, a set added or removed. The same holds for what evaluations
+ * keep between states of one netlist (observe/paths.ts trees, observe/finding-memo.ts findings): a run of states
+ * evaluated one after another equals each state evaluated on a netlist nothing was kept for.
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  applyActions,
   evaluate,
   getNetlist,
   initialState,
   type LeadChange,
   type Netlist,
   type Plan,
+  type SimAction,
   type SimState,
 } from '../../shared/engine/index';
 import { getTemplate } from '../../shared/engine/templates/part-templates';
 import { examplePlan } from '../support/example-plans';
+import { busyState, largePlan } from '../bench/bench-plans';
 
 const EXAMPLES = ['demo-plan.json', 'intercom.json', 'six-and-ten.json', 'two-set.json'];
 const SET_TEMPLATES = ['single-line', 'six-key', 'six-key-hf', 'ten-key'];
@@ -41,7 +46,10 @@ const replaceAt = <T>(xs: readonly T[], i: number, x: T): T[] => xs.map((y, j) =
 
 /** Ports a cable end may move to: the KSU's station ports and every port of every part's template. */
 function ends(plan: Plan): { part: string; port: string }[] {
-  const out = Array.from({ length: plan.ksu.ports }, (_, i) => ({ part: plan.ksu.id, port: `port-${i + 1}` }));
+  const out = Array.from({ length: plan.ksu.ports }, (_, i) => ({
+    part: plan.ksu.id,
+    port: `port-${i + 1}`,
+  }));
   for (const p of [...plan.sets, ...plan.addOns, ...plan.adapters])
     for (const pt of getTemplate(p.template)?.ports ?? []) out.push({ part: p.id, port: pt.name });
   return out;
@@ -143,5 +151,72 @@ describe('netlist after an edit', () => {
     const leads = (nl: Netlist) => nl.edges.filter((e) => e.kind === 'lead').length;
     // lifting both conductors of pair 1 removes two lead wires (tip and ring): lead-changes.ts
     expect(leads(after)).toBe(leads(before) - 2);
+  });
+});
+
+/** An operating step named by small numbers, made into an action on whatever plan it meets. */
+const step = fc.tuple(fc.nat(7), fc.nat(), fc.integer({ min: 1, max: 10 }));
+
+function actionOn(plan: Plan, [kind, n, k]: [number, number, number]): SimAction {
+  const set = plan.sets[n % plan.sets.length].id;
+  const line = plan.ksu.lines[n % plan.ksu.lines.length]?.number ?? 1;
+  const station = plan.ksu.stations[n % Math.max(1, plan.ksu.stations.length)]?.id;
+  const actions: SimAction[] = [
+    { kind: 'lift-handset', set },
+    { kind: 'hang-up', set },
+    { kind: 'press-key', set, key: k },
+    { kind: 'press-hold', set },
+    { kind: 'hands-free', set, on: k % 2 === 0 },
+    { kind: 'ring-line', line },
+    station ? { kind: 'intercom-call', station } : { kind: 'pause' },
+    { kind: 'release-keys', set },
+  ];
+  return actions[kind];
+}
+
+/** The evaluation on a copy of the plan whose netlist is built afresh: nothing kept from any earlier evaluation. */
+function cold(plan: Plan, state: SimState, paths: boolean) {
+  const fresh = structuredClone(plan);
+  getNetlist(fresh, { cached: false });
+  return evaluate(fresh, state, { paths });
+}
+
+describe('evaluations one after another', () => {
+  it('equal each state evaluated with nothing kept, after edits too', () => {
+    fc.assert(
+      fc.property(
+        // the examples, and the benchmark's ten sets, whose shared cords give many findings per state
+        fc.constantFrom(...EXAMPLES, 'ten sets'),
+        fc.array(edit, { maxLength: 3 }),
+        fc.array(step, { minLength: 1, maxLength: 12 }),
+        (file, edits, steps) => {
+          let plan = file === 'ten sets' ? largePlan(3, 10) : examplePlan(file);
+          evaluate(plan, initialState(plan));
+          for (const e of edits) plan = e(plan);
+          let state = initialState(plan);
+          for (const s of steps) {
+            state = applyActions(plan, state, [actionOn(plan, s)]);
+            // twice each: the second evaluation takes what the first one kept
+            for (const paths of [true, false, true]) {
+              expect(evaluate(plan, state, { paths })).toEqual(cold(plan, state, paths));
+            }
+          }
+        },
+      ),
+      { numRuns: 60 },
+    );
+  }, 120_000);
+
+  it('keeps what it can: the same state twice gives the same finding objects', () => {
+    // guard on the property above: it would pass as well with nothing kept at all
+    const plan = largePlan(3, 10);
+    const state = busyState(plan);
+    const first = evaluate(plan, state).findings;
+    const again = evaluate(plan, state).findings;
+    const kept = new Set(again.filter((f, i) => f === first[i]).map((f) => f.code));
+    // the benchmark's ten sets in a busy moment hear lines they did not select (tests/bench/bench-plans.ts)
+    expect(kept).toContain('SET_HEARS_UNSELECTED_LINE');
+    expect(kept).toContain('BREAK_IN');
+    expect(kept).toContain('SET_HEARS_SEVERAL_LINES');
   });
 });

@@ -2,7 +2,7 @@
  * Electrical facts of one state, read off the nets: which A-leads are grounded, which lines have a loop,
  * which set hears which line. Shared by the state machine (applyAction) and the observations (evaluate).
  */
-import type { ElementInfo, Netlist } from './netlist';
+import { perNetlist, type ElementInfo, type Netlist } from './netlist';
 import { evaluateNets, type Mech } from './nets';
 
 export interface NetFacts {
@@ -24,17 +24,21 @@ export interface NetFacts {
 
 const ascending = (a: number, b: number) => a - b;
 
-const networkCache = new WeakMap<Netlist, ElementInfo[]>();
-
-/** The speech networks among the netlist's elements, in element order. */
-function networksOf(nl: Netlist): ElementInfo[] {
-  let list = networkCache.get(nl);
-  if (!list) {
-    list = nl.elements.filter((e) => e.kind === 'network');
-    networkCache.set(nl, list);
-  }
-  return list;
+/** The speech networks among the netlist's elements, in element order: dense ids of their ends and their owner. */
+interface Networks {
+  a: Int32Array;
+  b: Int32Array;
+  owner: Int32Array;
 }
+
+const networksOf = perNetlist((nl): Networks => {
+  const list: ElementInfo[] = nl.elements.filter((e) => e.kind === 'network');
+  return {
+    a: Int32Array.from(list, (e) => nl.dense[e.a]),
+    b: Int32Array.from(list, (e) => nl.dense[e.b]),
+    owner: Int32Array.from(list, (e) => e.owner),
+  };
+});
 
 export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
   const roots = evaluateNets(nl, mech);
@@ -57,16 +61,18 @@ export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
   }
   const hears: number[][] = new Array(nl.sets.length);
   for (let s = 0; s < hears.length; s++) hears[s] = [];
-  for (const e of networksOf(nl)) {
-    const ra = roots[d[e.a]];
-    const rb = roots[d[e.b]];
+  const networks = networksOf(nl);
+  for (let k = 0; k < networks.a.length; k++) {
+    const ra = roots[networks.a[k]];
+    const rb = roots[networks.b[k]];
     if (ra === rb) continue;
+    const owner = networks.owner[k];
     for (let i = 0; i < nLines; i++) {
       if ((ra === rootT[i] && rb === rootR[i]) || (ra === rootR[i] && rb === rootT[i])) {
         networkLoop[i] = true;
-        if (e.owner >= 0 && !hears[e.owner].includes(i)) {
-          hears[e.owner].push(i);
-          setsOn[i].push(e.owner);
+        if (owner >= 0 && !hears[owner].includes(i)) {
+          hears[owner].push(i);
+          setsOn[i].push(owner);
         }
       }
     }

@@ -38,6 +38,13 @@ export interface TerminalInfo {
 }
 
 export type EdgeKind = 'lead' | 'cable' | 'bridge' | 'cross-connect' | 'contact';
+/** Netlist.edgeKind codes: the index of the kind here. */
+export const EDGE_KINDS: readonly EdgeKind[] = ['lead', 'cable', 'bridge', 'cross-connect', 'contact'];
+export const KIND_LEAD = 0;
+export const KIND_CABLE = 1;
+export const KIND_BRIDGE = 2;
+export const KIND_CROSS_CONNECT = 3;
+export const KIND_CONTACT = 4;
 
 export interface Edge {
   a: number;
@@ -122,6 +129,11 @@ export interface Netlist {
   terminals: TerminalInfo[];
   /** Wires and contacts (contacts last). */
   edges: Edge[];
+  /** The edges' ends, kinds (EDGE_KINDS index) and contacts (-1: a wire) as flat arrays, for the loops over all. */
+  edgeA: Int32Array;
+  edgeB: Int32Array;
+  edgeKind: Uint8Array;
+  edgeContact: Int32Array;
   contacts: ContactInfo[];
   elements: ElementInfo[];
   /** Terminal → static component (root terminal id). */
@@ -133,7 +145,43 @@ export interface Netlist {
   hot: { ca: Int32Array; cb: Int32Array; cond: Int32Array; mech: Int32Array; key: Int32Array; count: number };
   /** Scratch buffer for evaluateNets. */
   work: Int32Array;
-  terminalIndex: Map<string, number>;
+  /** "part index|terminal name" → terminal id, made when first read (terminalId looks one up without it). */
+  readonly terminalIndex: Map<string, number>;
+  /** Per part: named terminals and pin ids per port (what terminalId reads). */
+  partTerminals: { names: Map<string, number> | undefined; pinIds: Map<string, Int32Array> | undefined }[];
+}
+
+/** A part's terminal by name ("port:pin" for a connector pin), or -1. */
+export function terminalId(nl: Netlist, part: number, name: string): number {
+  const at = nl.partTerminals[part];
+  if (!at) return -1;
+  const pin = pinOfName(name);
+  if (pin) {
+    const id = at.pinIds?.get(pin.port)?.[pin.pin] ?? -1;
+    if (id >= 0) return id;
+  }
+  return at.names?.get(name) ?? -1;
+}
+
+const terminalIndexes = new WeakMap<Netlist, Map<string, number>>();
+
+function terminalIndexOf(nl: Netlist): Map<string, number> {
+  let index = terminalIndexes.get(nl);
+  if (!index) {
+    index = new Map(nl.terminals.map((t, i) => [`${t.part}|${t.name}`, i]));
+    terminalIndexes.set(nl, index);
+  }
+  return index;
+}
+
+/** A value made from a netlist on first use and kept with it (a netlist never changes once built). */
+export function perNetlist<T>(make: (nl: Netlist) => T): (nl: Netlist) => T {
+  const made = new WeakMap<Netlist, T>();
+  return (nl) => {
+    let value = made.get(nl);
+    if (value === undefined) made.set(nl, (value = make(nl)));
+    return value;
+  };
 }
 
 function find(parent: Int32Array, x: number): number {
@@ -161,9 +209,12 @@ interface Builder {
   parts: PartInfo[];
   partById: Map<string, PartInfo>;
   terminals: TerminalInfo[];
-  terminalIndex: Map<string, number>;
+  /** Per part: its named (non-pin) terminals by name. */
+  names: (Map<string, number> | undefined)[];
   /** Per part and port: terminal id of each connector pin, -1 until asked for. */
   pinIds: (Map<string, Int32Array> | undefined)[];
+  /** Parts whose names / pinIds maps are shared with a cached wiring (copied before they change). */
+  shared: Set<number>;
   edges: Edge[];
   contactEdges: Edge[];
   contacts: ContactInfo[];
@@ -185,8 +236,9 @@ function newBuilder(cached: boolean): Builder {
     parts: [],
     partById: new Map(),
     terminals: [],
-    terminalIndex: new Map(),
+    names: [],
     pinIds: [],
+    shared: new Set(),
     edges: [],
     contactEdges: [],
     contacts: [],
@@ -207,41 +259,86 @@ function addPart(
   return p;
 }
 
+/** Port and pin when `name` is "port:pin" with a pin of the 25-pair connector, else null. */
+function pinOfName(name: string): { port: string; pin: number } | null {
+  const colon = name.lastIndexOf(':');
+  if (colon <= 0) return null;
+  const pin = Number(name.slice(colon + 1));
+  return Number.isInteger(pin) && pin >= 1 && pin <= PIN_COUNT ? { port: name.slice(0, colon), pin } : null;
+}
+
+/** Before a part's names or pin ids change, stop sharing them with the cached wiring they came from. */
+function ownMaps(b: Builder, part: number): void {
+  if (!b.shared.delete(part)) return;
+  const names = b.names[part];
+  if (names) b.names[part] = new Map(names);
+  const pins = b.pinIds[part];
+  if (pins) b.pinIds[part] = new Map([...pins].map(([port, ids]) => [port, ids.slice()]));
+}
+
+/**
+ * Every terminal, wire and load object has all its fields, in one order: the loops over thousands of them (static
+ * components, adjacency, finding rules) then read one object shape, not several.
+ */
+const terminalInfo = (part: number, name: string): TerminalInfo => ({
+  part,
+  name,
+  port: undefined,
+  pin: undefined,
+  pair: undefined,
+  conductor: undefined,
+  lead: undefined,
+});
+
+const edge = (
+  a: number,
+  b: number,
+  kind: EdgeKind,
+  label: string,
+  more: Pick<Edge, 'cable' | 'lead' | 'contact'> = {},
+): Edge => ({ a, b, kind, label, cable: more.cable, lead: more.lead, contact: more.contact });
+
+function newTerminal(b: Builder, info: TerminalInfo): number {
+  b.terminals.push(info);
+  return b.terminals.length - 1;
+}
+
 /** A part's terminal by name, made on first use; "port:pin" names are connector pins and carry their pair. */
 function term(b: Builder, part: number, name: string): number {
-  const key = `${part}|${name}`;
-  let id = b.terminalIndex.get(key);
-  if (id === undefined) {
-    id = b.terminals.length;
-    const info: TerminalInfo = { part, name };
-    const colon = name.lastIndexOf(':');
-    if (colon > 0) {
-      const pin = Number(name.slice(colon + 1));
-      if (Number.isInteger(pin) && pin >= 1 && pin <= PIN_COUNT) {
-        info.port = name.slice(0, colon);
-        info.pin = pin;
-        const { pair, conductor } = pinToPair(pin);
-        info.pair = pair;
-        info.conductor = conductor;
-      }
-    }
-    b.terminals.push(info);
-    b.terminalIndex.set(key, id);
-  }
-  return id;
+  const pin = pinOfName(name);
+  if (pin) return pinTerm(b, part, pin.port, pin.pin);
+  const id = b.names[part]?.get(name);
+  if (id !== undefined) return id;
+  ownMaps(b, part);
+  const made = newTerminal(b, terminalInfo(part, name));
+  (b.names[part] ??= new Map()).set(name, made);
+  return made;
 }
 
 /** Connector pins are asked for often (every cable, bridge and lead): their ids are kept per part and port. */
 function pinTerm(b: Builder, part: number, port: string, pin: number): number {
   if (!(pin >= 1 && pin <= PIN_COUNT)) return term(b, part, `${port}:${pin}`);
+  const known = b.pinIds[part]?.get(port);
+  if (known && known[pin] >= 0) return known[pin];
+  ownMaps(b, part);
   const byPort = (b.pinIds[part] ??= new Map());
   let ids = byPort.get(port);
   if (!ids) {
     ids = new Int32Array(PIN_COUNT + 1).fill(-1);
     byPort.set(port, ids);
   }
-  if (ids[pin] < 0) ids[pin] = term(b, part, `${port}:${pin}`);
+  const { pair, conductor } = pinToPair(pin);
+  ids[pin] = newTerminal(b, { ...terminalInfo(part, `${port}:${pin}`), port, pin, pair, conductor });
   return ids[pin];
+}
+
+/**
+ * Every pin of each of a part's ports, made before anything else of the part: a part then has the same terminals
+ * whatever its lead changes and whatever is cabled to it, so an edit leaves every other part's terminal ids as
+ * they were (and their cached wiring reusable as it is).
+ */
+function allPins(b: Builder, part: number, ports: readonly string[]): void {
+  for (const port of ports) for (let pin = 1; pin <= PIN_COUNT; pin++) pinTerm(b, part, port, pin);
 }
 
 /**
@@ -271,6 +368,11 @@ function ksuTerminals(b: Builder, plan: Plan, ksuPart: PartInfo): KsuTerminals {
 /** The KSU cross-connect: which line-circuit lead or buzzer output each pair of each station port carries. */
 function wireCrossConnect(b: Builder, plan: Plan, ksu: KsuTerminals): void {
   const { ksuPart, gnd } = ksu;
+  allPins(
+    b,
+    ksuPart.index,
+    Array.from({ length: plan.ksu.ports }, (_, i) => ksuPortName(i + 1)),
+  );
   const lineByNumber = new Map(ksu.lines.map((l) => [l.number, l]));
   const stationById = new Map(ksu.stations.map((s) => [s.id, s]));
   for (const cc of effectiveCrossConnect(plan.ksu)) {
@@ -298,8 +400,8 @@ function wireCrossConnect(b: Builder, plan: Plan, ksu: KsuTerminals): void {
         [tipTo, ringTo, what] = [line.l, gnd, `line ${line.number} lamp L / LG`];
       else [tipTo, ringTo, what] = [line.a, line.l, `line ${line.number} A-lead and lamp lead`];
     }
-    b.edges.push({ a: tipPin, b: tipTo, kind: 'cross-connect', label: `cross-connect: ${what} (tip)` });
-    b.edges.push({ a: ringPin, b: ringTo, kind: 'cross-connect', label: `cross-connect: ${what} (ring)` });
+    b.edges.push(edge(tipPin, tipTo, 'cross-connect', `cross-connect: ${what} (tip)`));
+    b.edges.push(edge(ringPin, ringTo, 'cross-connect', `cross-connect: ${what} (ring)`));
   }
 }
 
@@ -365,7 +467,7 @@ function wireLeads(b: Builder, p: PartInfo, tpl: PartTemplate, changes: readonly
     if (pair === null) return;
     const pin = pinTerm(b, p.index, tpl.leadPort!, pinOf(pair, lead.conductor));
     const moved = pair !== lead.pair ? ` (moved to pair ${pair}, ${pairColour(pair).name})` : '';
-    b.edges.push({ a: t, b: pin, kind: 'lead', label: `lead ${lead.designation}${moved}`, lead });
+    b.edges.push(edge(t, pin, 'lead', `lead ${lead.designation}${moved}`, { lead }));
   });
 }
 
@@ -378,12 +480,7 @@ function wireBridges(b: Builder, p: PartInfo, tpl: PartTemplate, bridgedPairs?: 
         const pin = pinOf(pair, conductor);
         const first = pinTerm(b, p.index, group[0], pin);
         for (let g = 1; g < group.length; g++) {
-          b.edges.push({
-            a: first,
-            b: pinTerm(b, p.index, group[g], pin),
-            kind: 'bridge',
-            label: `bridged inside ${p.name}`,
-          });
+          b.edges.push(edge(first, pinTerm(b, p.index, group[g], pin), 'bridge', `bridged inside ${p.name}`));
         }
       }
     }
@@ -411,7 +508,7 @@ function addContacts(b: Builder, p: PartInfo, tpl: PartTemplate, ownerSet: numbe
       part: p.index,
       label: c.label,
     });
-    b.contactEdges.push({ a, b: z, kind: 'contact', label: c.label, contact: index });
+    b.contactEdges.push(edge(a, z, 'contact', c.label, { contact: index }));
   }
 }
 
@@ -425,6 +522,7 @@ function addElements(b: Builder, p: PartInfo, tpl: PartTemplate, ownerSet: numbe
       part: p.index,
       owner: ownerSet,
       key: e.key,
+      line: undefined,
       label: e.label,
     });
   }
@@ -440,6 +538,11 @@ function wirePart(
 ): void {
   const tpl = p.template;
   if (!tpl) return;
+  allPins(
+    b,
+    p.index,
+    tpl.ports.map((pt) => pt.name),
+  );
   wireLeads(b, p, tpl, changes);
   wireBridges(b, p, tpl, bridgedPairs);
   addContacts(b, p, tpl, ownerSet);
@@ -448,6 +551,11 @@ function wirePart(
 
 /** A set's ringers: one load per line the plan straps it to, across that line's strap terminals. */
 function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly number[]): void {
+  // every strap's terminals, strapped or not: the part's terminals do not depend on its straps
+  for (const strap of p.template?.ringerStraps ?? []) {
+    term(b, p.index, strap.tip);
+    term(b, p.index, strap.ring);
+  }
   for (const line of ringerLines) {
     const strap = p.template?.ringerStraps?.find((r) => r.line === line);
     if (!strap) continue;
@@ -457,6 +565,7 @@ function addRingers(b: Builder, p: PartInfo, set: SetInfo, ringerLines: readonly
       b: term(b, p.index, strap.ring),
       part: p.index,
       owner: set.index,
+      key: undefined,
       line,
       label: `Ringer strapped to line ${line}`,
     });
@@ -468,7 +577,7 @@ interface PartWiring {
   termBase: number;
   contactBase: number;
   terminals: TerminalInfo[];
-  termNames: string[];
+  names: Map<string, number> | undefined;
   pinIds: Map<string, Int32Array> | undefined;
   edges: Edge[];
   contactEdges: Edge[];
@@ -478,35 +587,68 @@ interface PartWiring {
 
 /**
  * Part wirings by content (the KSU's with its cross-connect too): after an edit in the Bench (one part at a time, a
- * new plan object) every other part is wired exactly as before. A part's terminals are all made while it is wired, so its wiring depends only on its
- * own data, its index and the set that owns it (all in the key), up to where its terminal ids and contact indices
- * start: a hit made at the same ids pushes the same objects again, one made elsewhere pushes them shifted. Either
- * way equal to what a fresh build makes. Netlists never change after build, so sharing the objects is safe.
+ * new plan object) every other part is wired exactly as before. A part's terminals are all made while it is wired,
+ * and how many depends on its template alone (allPins, addRingers), so its wiring depends only on its own data, its
+ * index and the set that owns it (all in the key), up to where its terminal ids and contact indices start: a hit
+ * made at the same ids pushes the same objects again, one made elsewhere (after a part whose template changed)
+ * pushes them shifted. Either way equal to what a fresh build makes. Netlists never change after build, so sharing
+ * the objects is safe.
  */
 const partWirings = new Map<string, PartWiring>();
 /** Least recently used go first (Map order): enough for a few versions of a large plan, a few MB at most. */
 const PART_WIRINGS_MAX = 512;
+
+/** A plan part's content as text, made once per part object (plans are never changed in place). */
+const contentKeys = new WeakMap<object, string>();
+export function contentKey(data: object): string {
+  let key = contentKeys.get(data);
+  if (key === undefined) {
+    key = JSON.stringify(data);
+    contentKeys.set(data, key);
+  }
+  return key;
+}
+
+/** Least recently used entries go first once a cache holds `max` (Map order). */
+function lruGet<T>(cache: Map<string, T>, key: string): T | undefined {
+  const hit = cache.get(key);
+  if (hit !== undefined) {
+    cache.delete(key);
+    cache.set(key, hit);
+  }
+  return hit;
+}
+
+function lruSet<T>(cache: Map<string, T>, key: string, value: T, max: number): void {
+  if (cache.size >= max) cache.delete(cache.keys().next().value!);
+  cache.set(key, value);
+}
 
 const shiftEdge = (e: Edge, dt: number, dc: number): Edge =>
   e.contact === undefined
     ? { ...e, a: e.a + dt, b: e.b + dt }
     : { ...e, a: e.a + dt, b: e.b + dt, contact: e.contact + dc };
 
+const shiftIds = (ids: Int32Array, dt: number) => ids.map((id) => (id < 0 ? id : id + dt));
+
 function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
   const dt = b.terminals.length - w.termBase;
   const dc = b.contacts.length - w.contactBase;
-  for (const t of w.terminals) b.terminals.push(t);
-  w.termNames.forEach((name, i) => b.terminalIndex.set(name, b.terminals.length - w.terminals.length + i));
-  if (w.pinIds) {
-    const byPort = new Map<string, Int32Array>();
-    for (const [port, ids] of w.pinIds) byPort.set(port, ids.map((id) => (id < 0 ? id : id + dt)));
-    b.pinIds[p.index] = byPort;
+  // one part has a few hundred of each at most: push(...) copies them in one go
+  b.terminals.push(...w.terminals);
+  if (dt === 0) {
+    b.names[p.index] = w.names;
+    b.pinIds[p.index] = w.pinIds;
+    b.shared.add(p.index);
+  } else {
+    b.names[p.index] = w.names && new Map([...w.names].map(([n, id]) => [n, id + dt]));
+    b.pinIds[p.index] = w.pinIds && new Map([...w.pinIds].map(([port, ids]) => [port, shiftIds(ids, dt)]));
   }
   if (dt === 0 && dc === 0) {
-    for (const e of w.edges) b.edges.push(e);
-    for (const e of w.contactEdges) b.contactEdges.push(e);
-    for (const c of w.contacts) b.contacts.push(c);
-    for (const e of w.elements) b.elements.push(e);
+    b.edges.push(...w.edges);
+    b.contactEdges.push(...w.contactEdges);
+    b.contacts.push(...w.contacts);
+    b.elements.push(...w.elements);
     return;
   }
   for (const e of w.edges) b.edges.push(shiftEdge(e, dt, dc));
@@ -515,32 +657,44 @@ function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
   for (const e of w.elements) b.elements.push({ ...e, a: e.a + dt, b: e.b + dt });
 }
 
-function wireCached(b: Builder, p: PartInfo, data: unknown, ownerSet: number, wire: () => void): void {
+/** The last wiring made or found for a part object, with the index and owner it was made for. */
+const wiringByObject = new WeakMap<object, { at: string; wiring: PartWiring }>();
+
+function wireCached(b: Builder, p: PartInfo, data: object, ownerSet: number, wire: () => void): void {
   if (!b.cached) return wire();
-  const key = `${p.index}|${ownerSet}|${p.kind}|${JSON.stringify(data)}`;
-  const hit = partWirings.get(key);
+  const at = `${p.index}|${ownerSet}|${p.kind}`;
+  const same = wiringByObject.get(data);
+  if (same?.at === at) return pushWiring(b, p, same.wiring);
+  const key = `${at}|${contentKey(data)}`;
+  const hit = lruGet(partWirings, key);
   if (hit) {
-    partWirings.delete(key);
-    partWirings.set(key, hit);
+    wiringByObject.set(data, { at, wiring: hit });
     return pushWiring(b, p, hit);
   }
-  const at = [b.terminals.length, b.edges.length, b.contactEdges.length, b.contacts.length, b.elements.length];
+  const from = [
+    b.terminals.length,
+    b.edges.length,
+    b.contactEdges.length,
+    b.contacts.length,
+    b.elements.length,
+  ];
   wire();
-  const terminals = b.terminals.slice(at[0]);
+  const names = b.names[p.index];
   const pins = b.pinIds[p.index];
-  if (partWirings.size >= PART_WIRINGS_MAX) partWirings.delete(partWirings.keys().next().value!);
-  partWirings.set(key, {
-    termBase: at[0],
-    contactBase: at[3],
-    terminals,
-    termNames: terminals.map((t) => `${p.index}|${t.name}`),
-    // as the part left them: cables fill in more pins later, on the builder's copy
+  const wiring: PartWiring = {
+    termBase: from[0],
+    contactBase: from[3],
+    terminals: b.terminals.slice(from[0]),
+    // copies: the builder's own maps stay the builder's
+    names: names && new Map(names),
     pinIds: pins && new Map([...pins].map(([port, ids]) => [port, ids.slice()])),
-    edges: b.edges.slice(at[1]),
-    contactEdges: b.contactEdges.slice(at[2]),
-    contacts: b.contacts.slice(at[3]),
-    elements: b.elements.slice(at[4]),
-  });
+    edges: b.edges.slice(from[1]),
+    contactEdges: b.contactEdges.slice(from[2]),
+    contacts: b.contacts.slice(from[3]),
+    elements: b.elements.slice(from[4]),
+  };
+  lruSet(partWirings, key, wiring, PART_WIRINGS_MAX);
+  wiringByObject.set(data, { at, wiring });
 }
 
 /** Every part's wiring: sets (then their ringers), add-ons, adapters, in plan order. */
@@ -577,43 +731,101 @@ function portExists(plan: Plan, part: PartInfo, port: string): boolean {
   return !!part.template?.ports.some((pt) => pt.name === port);
 }
 
+/**
+ * Each cable's wires by content and by the terminal ids its two ports start at (every port's pins are made
+ * together, in pin order): an edit elsewhere leaves both, and the cable's wires are the same objects again.
+ */
+const cableWirings = new Map<string, Edge[]>();
+const CABLE_WIRINGS_MAX = 2048;
+const cableByObject = new WeakMap<object, { at: string; edges: Edge[] }>();
+
+function cableEdges(b: Builder, c: Plan['cables'][number], from: PartInfo, to: PartInfo): Edge[] {
+  const wire = () =>
+    // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
+    cableWires(c).map((w): Edge =>
+      edge(
+        pinTerm(b, from.index, c.from.port, w.fromPin),
+        pinTerm(b, to.index, c.to.port, w.toPin),
+        'cable',
+        `cable ${c.label || c.id}${w.note}`,
+        { cable: c.id },
+      ),
+    );
+  const first = [pinTerm(b, from.index, c.from.port, 1), pinTerm(b, to.index, c.to.port, 1)];
+  const last = [pinTerm(b, from.index, c.from.port, PIN_COUNT), pinTerm(b, to.index, c.to.port, PIN_COUNT)];
+  // the ports' pins in one run of ids (allPins), so the first pin's ids say where all of them are
+  const runs = last[0] - first[0] === PIN_COUNT - 1 && last[1] - first[1] === PIN_COUNT - 1;
+  if (!b.cached || !runs) return wire();
+  const at = `${first[0]}|${first[1]}`;
+  const same = cableByObject.get(c);
+  if (same?.at === at) return same.edges;
+  const key = `${at}|${contentKey(c)}`;
+  let edges = lruGet(cableWirings, key);
+  if (!edges) lruSet(cableWirings, key, (edges = wire()), CABLE_WIRINGS_MAX);
+  cableByObject.set(c, { at, edges });
+  return edges;
+}
+
 /** Cables: pin for pin between two existing ports (a cable to a missing part or port carries nothing). */
 function wireCables(b: Builder, plan: Plan): void {
   for (const c of plan.cables) {
     const from = b.partById.get(c.from.part);
     const to = b.partById.get(c.to.part);
     if (!from || !to || !portExists(plan, from, c.from.port) || !portExists(plan, to, c.to.port)) continue;
-    // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
-    for (const w of cableWires(c)) {
-      b.edges.push({
-        a: pinTerm(b, from.index, c.from.port, w.fromPin),
-        b: pinTerm(b, to.index, c.to.port, w.toPin),
-        kind: 'cable',
-        label: `cable ${c.label || c.id}${w.note}`,
-        cable: c.id,
-      });
-    }
+    b.edges.push(...cableEdges(b, c, from, to));
   }
 }
 
+type FlatEdges = Pick<Netlist, 'edgeA' | 'edgeB' | 'edgeKind' | 'edgeContact'>;
+
+const KIND_CODE: Record<EdgeKind, number> = {
+  lead: KIND_LEAD,
+  cable: KIND_CABLE,
+  bridge: KIND_BRIDGE,
+  'cross-connect': KIND_CROSS_CONNECT,
+  contact: KIND_CONTACT,
+};
+
+/** One pass over the edge objects; every later loop over all edges reads these. */
+function flatEdges(edges: readonly Edge[]): FlatEdges {
+  const m = edges.length;
+  const flat = {
+    edgeA: new Int32Array(m),
+    edgeB: new Int32Array(m),
+    edgeKind: new Uint8Array(m),
+    edgeContact: new Int32Array(m),
+  };
+  for (let i = 0; i < m; i++) {
+    const e = edges[i];
+    flat.edgeA[i] = e.a;
+    flat.edgeB[i] = e.b;
+    flat.edgeKind[i] = KIND_CODE[e.kind];
+    flat.edgeContact[i] = e.contact ?? -1;
+  }
+  return flat;
+}
+
 /** Wires never change with the state, so their connectivity is solved once: terminal → static root. */
-function staticComponents(n: number, edges: readonly Edge[]): Int32Array {
+function staticComponents(n: number, flat: FlatEdges, wires: number): Int32Array {
   const parent = new Int32Array(n);
   for (let i = 0; i < n; i++) parent[i] = i;
-  for (const e of edges) {
-    const ra = find(parent, e.a);
-    const rb = find(parent, e.b);
+  const { edgeA, edgeB } = flat;
+  for (let k = 0; k < wires; k++) {
+    const ra = find(parent, edgeA[k]);
+    const rb = find(parent, edgeB[k]);
     if (ra !== rb) parent[ra] = rb;
   }
-  const staticRoot = new Int32Array(n);
-  for (let i = 0; i < n; i++) staticRoot[i] = find(parent, i);
-  return staticRoot;
+  // in place: every entry becomes its root
+  for (let i = 0; i < n; i++) parent[i] = find(parent, i);
+  return parent;
 }
 
 /**
  * Dense ids for the static components the state can change or the observations read (KSU leads, loads, contact
  * ends), and the contacts that can join two of them, as flat arrays for the per-state union (nets.ts).
  */
+let rootBuffer = new Int32Array(0);
+
 function denseComponents(
   b: Builder,
   ksu: KsuTerminals,
@@ -621,8 +833,9 @@ function denseComponents(
 ): Pick<Netlist, 'dense' | 'denseCount' | 'hot'> {
   const n = b.terminals.length;
   const dense = new Int32Array(n).fill(-1);
-  // static root → dense id (-1: none yet); roots are terminal ids
-  const rootDense = new Int32Array(n).fill(-1);
+  // static root → dense id (-1: none yet); roots are terminal ids. Scratch: builds are synchronous.
+  if (rootBuffer.length < n) rootBuffer = new Int32Array(n);
+  const rootDense = rootBuffer.subarray(0, n).fill(-1);
   let denseCount = 0;
   const mark = (t: number): number => {
     const r = staticRoot[t];
@@ -632,27 +845,46 @@ function denseComponents(
     return d;
   };
   mark(ksu.gnd);
-  for (const l of ksu.lines) [l.t, l.r, l.a, l.l].forEach(mark);
-  for (const s of ksu.stations) [s.t, s.r].forEach(mark);
+  for (const l of ksu.lines) {
+    mark(l.t);
+    mark(l.r);
+    mark(l.a);
+    mark(l.l);
+  }
+  for (const s of ksu.stations) {
+    mark(s.t);
+    mark(s.r);
+  }
   for (const e of b.elements) {
     mark(e.a);
     mark(e.b);
   }
-  const hotList: ContactInfo[] = [];
+  let count = 0;
   for (const c of b.contacts) {
     const da = mark(c.a);
     const db = mark(c.b);
-    if (da !== db && c.mech >= 0) hotList.push(c);
+    if (da !== db && c.mech >= 0) count++;
+  }
+  const hot = {
+    ca: new Int32Array(count),
+    cb: new Int32Array(count),
+    cond: new Int32Array(count),
+    mech: new Int32Array(count),
+    key: new Int32Array(count),
+    count,
+  };
+  let k = 0;
+  for (const c of b.contacts) {
+    const da = dense[c.a];
+    const db = dense[c.b];
+    if (da === db || c.mech < 0) continue;
+    hot.ca[k] = da;
+    hot.cb[k] = db;
+    hot.cond[k] = c.cond;
+    hot.mech[k] = c.mech;
+    hot.key[k++] = c.key;
   }
   for (let i = 0; i < n; i++) if (dense[i] < 0) dense[i] = rootDense[staticRoot[i]];
-  const hot = {
-    ca: Int32Array.from(hotList, (c) => dense[c.a]),
-    cb: Int32Array.from(hotList, (c) => dense[c.b]),
-    cond: Int32Array.from(hotList, (c) => c.cond),
-    mech: Int32Array.from(hotList, (c) => c.mech),
-    key: Int32Array.from(hotList, (c) => c.key),
-    count: hotList.length,
-  };
   return { dense, denseCount, hot };
 }
 
@@ -671,7 +903,9 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
   const adapterParts = addAdapters(b, plan);
   wireParts(b, plan, sets, addOnParts, adapterParts);
   wireCables(b, plan);
-  const staticRoot = staticComponents(b.terminals.length, b.edges);
+  const edges = b.edges.concat(b.contactEdges);
+  const flat = flatEdges(edges);
+  const staticRoot = staticComponents(b.terminals.length, flat, b.edges.length);
   const { dense, denseCount, hot } = denseComponents(b, ksu, staticRoot);
   return {
     plan,
@@ -683,7 +917,8 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
     stations: ksu.stations,
     gnd: ksu.gnd,
     terminals: b.terminals,
-    edges: b.edges.concat(b.contactEdges),
+    edges,
+    ...flat,
     contacts: b.contacts,
     elements: b.elements,
     staticRoot,
@@ -691,6 +926,9 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
     denseCount,
     hot,
     work: new Int32Array(denseCount),
-    terminalIndex: b.terminalIndex,
+    get terminalIndex() {
+      return terminalIndexOf(this);
+    },
+    partTerminals: b.parts.map((_, i) => ({ names: b.names[i], pinIds: b.pinIds[i] })),
   };
 }

@@ -16,7 +16,7 @@ import {
   observeStations,
 } from './observations';
 import { withWiringSymptoms } from './wiring-symptoms';
-import { computeNets, type StateNets } from './state-nets';
+import { computeNetsScratch, type StateNets } from './state-nets';
 
 export { computeNets, computeNetsInto, createMechFor, type StateNets } from './state-nets';
 export { eventMayAddFindings };
@@ -27,7 +27,8 @@ export interface EvaluateOptions {
 }
 
 export function evaluate(plan: Plan, state: SimState, options: EvaluateOptions = {}): Evaluation {
-  return evaluateWithNets(plan, state, computeNets(plan, state), options);
+  // the nets in scratch buffers: nothing of them is in the evaluation it returns
+  return evaluateWithNets(plan, state, computeNetsScratch(plan, state), options);
 }
 
 /** Same as evaluate, with nets from computeNets for a state with the same set states. */

@@ -2,6 +2,7 @@
 import { isActive, selectedLines, type NetFacts } from '../model/facts';
 import type { Netlist } from '../model/netlist';
 import type { Finding } from './evaluation.types';
+import { bySetPosition, orderOf } from './finding-memo';
 import { PathFinder } from './paths';
 import type { FindingFacts, LineFacts, StateRule, WiringRule } from './rule.types';
 import { RULES } from './rules/index';
@@ -47,18 +48,9 @@ export function findingFacts(
   };
 }
 
-const lineIndexCache = new WeakMap<Netlist, Map<number, number>>();
-
 /** Position in the listing of a finding about one set: the set's index, then the first line's index. */
 function bySetOrder(nl: Netlist, f: Finding): number {
-  let lineIndex = lineIndexCache.get(nl);
-  if (!lineIndex) {
-    lineIndex = new Map(nl.lines.map((l, i) => [l.number, i]));
-    lineIndexCache.set(nl, lineIndex);
-  }
-  const set = nl.setById.get(f.sets[0])?.index ?? 0;
-  const line = f.lines.length ? (lineIndex.get(f.lines[0]) ?? -1) : -1;
-  return set * (nl.lines.length + 1) + line + 1;
+  return orderOf.get(f) ?? bySetPosition(nl, f);
 }
 
 let startBuffer = new Int32Array(0);

@@ -1,6 +1,6 @@
 /** Observations of one state: per line (status, A-lead, loop, lamp, far end, joins), per set, per station. */
 import type { NetFacts } from '../model/facts';
-import type { Netlist } from '../model/netlist';
+import { perNetlist, type Netlist } from '../model/netlist';
 import type { Mech } from '../model/nets';
 import type { FarPhase, LineState, SimState } from '../sim/state.schema';
 import type {
@@ -12,7 +12,6 @@ import type {
   ToneName,
 } from './evaluation.types';
 import type { LineFacts } from './rule.types';
-import { strongestCadence } from './signals';
 
 const TONE_OF_PHASE: Partial<Record<FarPhase, ToneName>> = {
   'dial-tone': 'dial',
@@ -190,14 +189,41 @@ export function buzzersOn(nl: Netlist, state: SimState, facts: NetFacts): boolea
   return on;
 }
 
-/** What the loads do: ringers across a ringing line, lamps across a line's lamp lead and ground, buzzers. */
+/** Lamp cadences by strength (strongestCadence): code 0 is dark, a larger code is more lit. */
+const CADENCE_BY_CODE: readonly Cadence[] = ['dark', 'wink', 'flash', 'steady'];
+const CODE_OF_CADENCE: Readonly<Record<Cadence, number>> = { dark: 0, wink: 1, flash: 2, steady: 3 };
+/** lampCode for a load that is no lamp lit by anything (shorted, unowned): read as dark. */
+const NO_LAMP = 0;
+
+/**
+ * What the loads do: ringers across a ringing line, lamps across a line's lamp lead and ground, buzzers. In
+ * scratch arrays of the netlist (evaluation is synchronous), read before the next evaluation.
+ */
 interface Loads {
-  ringerOn: boolean[];
+  ringerOn: Uint8Array;
   buzzerOn: boolean[];
-  /** Per element index, for lamps: cadence and the lines whose lamp leads reach it. */
-  lampCadence: Cadence[];
-  lampLines: number[][];
+  /** Per element index, for lamps: cadence code and the line indices (one bit each) whose lamp leads reach it. */
+  lampCode: Uint8Array;
+  lampLines: Int32Array;
 }
+
+const loadScratch = new WeakMap<Netlist, Omit<Loads, 'buzzerOn'>>();
+
+const LOAD_NONE = 0;
+const LOAD_BUZZER = 1;
+const LOAD_RINGER = 2;
+const LOAD_LAMP = 3;
+
+/** Per element: what kind of load the observations read it as (none: a network, or no owner), its ends' dense ids. */
+const loadsOf = perNetlist((nl) => {
+  const code = { buzzer: LOAD_BUZZER, ringer: LOAD_RINGER, lamp: LOAD_LAMP, network: LOAD_NONE };
+  return {
+    kind: Uint8Array.from(nl.elements, (e) => (e.owner < 0 ? LOAD_NONE : code[e.kind])),
+    a: Int32Array.from(nl.elements, (e) => nl.dense[e.a]),
+    b: Int32Array.from(nl.elements, (e) => nl.dense[e.b]),
+    owner: Int32Array.from(nl.elements, (e) => e.owner),
+  };
+});
 
 function observeLoads(
   nl: Netlist,
@@ -213,42 +239,116 @@ function observeLoads(
   const drivenT = driven ? roots[d[driven.t]] : -1;
   const drivenR = driven ? roots[d[driven.r]] : -1;
   const nSets = nl.sets.length;
-  const ringerOn: boolean[] = new Array(nSets).fill(false);
+  let scratch = loadScratch.get(nl);
+  if (!scratch) {
+    scratch = {
+      ringerOn: new Uint8Array(nSets),
+      lampCode: new Uint8Array(nl.elements.length),
+      lampLines: new Int32Array(nl.elements.length),
+    };
+    loadScratch.set(nl, scratch);
+  }
+  const { ringerOn, lampCode, lampLines } = scratch;
+  ringerOn.fill(0);
+  lampCode.fill(NO_LAMP);
+  lampLines.fill(0);
   const buzzerOn: boolean[] = new Array(nSets).fill(false);
-  const lampCadence: Cadence[] = new Array(nl.elements.length);
-  const lampLines: number[][] = new Array(nl.elements.length);
-  for (let k = 0; k < nl.elements.length; k++) {
-    const e = nl.elements[k];
-    if (e.owner < 0) continue;
-    const ra = roots[d[e.a]];
-    const rb = roots[d[e.b]];
+  const g = facts.gnd;
+  let ringing = false;
+  for (let i = 0; i < nLines && !ringing; i++) ringing = !!lineStates[i]?.ringing;
+  const { kind, a, b, owner } = loadsOf(nl);
+  for (let k = 0; k < kind.length; k++) {
+    const what = kind[k];
+    if (what === LOAD_NONE) continue;
+    const ra = roots[a[k]];
+    const rb = roots[b[k]];
     if (ra === rb) continue; // a shorted load never sounds or lights
-    if (e.kind === 'buzzer') {
+    if (what === LOAD_BUZZER) {
       if (driven && ((ra === drivenT && rb === drivenR) || (ra === drivenR && rb === drivenT)))
-        buzzerOn[e.owner] = true;
-    } else if (e.kind === 'ringer') {
+        buzzerOn[owner[k]] = true;
+    } else if (what === LOAD_RINGER) {
+      if (!ringing) continue;
       for (let i = 0; i < nLines; i++) {
         const x = facts.rootT[i];
         const y = facts.rootR[i];
         if (lineStates[i]?.ringing && ((ra === x && rb === y) || (ra === y && rb === x)))
-          ringerOn[e.owner] = true;
+          ringerOn[owner[k]] = 1;
       }
-    } else if (e.kind === 'lamp') {
-      let lamp: Cadence = 'dark';
-      const lit: number[] = [];
-      const g = facts.gnd;
+    } else {
+      // lit by the lines whose lamp lead is on one end while ground is on the other
+      const lead = ra === g ? rb : rb === g ? ra : -1;
+      if (lead < 0) continue;
+      let code = 0;
+      let lit = 0;
       for (let i = 0; i < nLines; i++) {
-        const x = facts.rootL[i];
-        if ((ra === x && rb === g) || (ra === g && rb === x)) {
-          lit.push(nl.lines[i].number);
-          lamp = strongestCadence(lamp, lines[i].lamp);
-        }
+        if (facts.rootL[i] !== lead) continue;
+        lit |= 1 << i;
+        code = Math.max(code, CODE_OF_CADENCE[lines[i].lamp]);
       }
-      lampCadence[k] = lamp;
+      lampCode[k] = code;
       lampLines[k] = lit;
     }
   }
-  return { ringerOn, buzzerOn, lampCadence, lampLines };
+  return { ringerOn, buzzerOn, lampCode, lampLines };
+}
+
+/** The line numbers of the line indices set in `bits`, ascending. */
+function lineNumbers(nl: Netlist, bits: number): number[] {
+  const out: number[] = [];
+  for (let i = 0; bits !== 0; i++, bits >>>= 1) if (bits & 1) out.push(nl.lines[i].number);
+  return out;
+}
+
+function sameLineNumbers(nl: Netlist, xs: readonly number[], bits: number): boolean {
+  let j = 0;
+  for (let i = 0; bits !== 0; i++, bits >>>= 1) {
+    if (!(bits & 1)) continue;
+    if (xs[j++] !== nl.lines[i].number) return false;
+  }
+  return j === xs.length;
+}
+
+/** The last observation of each set of a netlist: kept when a set shows the same in the next evaluation. */
+const lastSets = new WeakMap<Netlist, (SetObservation | undefined)[]>();
+
+/** Does the set's last observation say what it says now? (Compared field by field, nothing allocated.) */
+function stillSays(
+  nl: Netlist,
+  prev: SetObservation,
+  si: number,
+  mech: Mech,
+  facts: NetFacts,
+  lineStates: readonly (LineState | undefined)[],
+  loads: Loads,
+  lampOf: readonly number[],
+): boolean {
+  if (
+    prev.offHook !== (mech.offHook[si] === 1) ||
+    prev.pressedKey !== (mech.pressedKey[si] || null) ||
+    prev.handsFreeOn !== (mech.handsFreeOn[si] === 1) ||
+    prev.buzzer !== loads.buzzerOn[si] ||
+    prev.ringer !== (loads.ringerOn[si] === 1)
+  )
+    return false;
+  const heard = facts.hears[si];
+  if (prev.hears.length !== heard.length) return false;
+  let t = 0;
+  for (let j = 0; j < heard.length; j++) {
+    const number = nl.lines[heard[j]].number;
+    if (prev.hears[j] !== number) return false;
+    const tone = TONE_OF_PHASE[lineStates[heard[j]]?.far.phase ?? 'idle'];
+    if (!tone) continue;
+    const was = prev.tones[t++];
+    if (!was || was.tone !== tone || was.line !== number) return false;
+  }
+  if (t !== prev.tones.length) return false;
+  for (const key of prev.keys) {
+    const el = lampOf[key.index] ?? -1;
+    const code = el >= 0 ? loads.lampCode[el] : NO_LAMP;
+    if (key.lamp !== CADENCE_BY_CODE[code]) return false;
+    if (!sameLineNumbers(nl, key.lines, el >= 0 ? loads.lampLines[el] : 0)) return false;
+  }
+  return true;
 }
 
 export function observeSets(
@@ -260,9 +360,17 @@ export function observeSets(
   lines: readonly LineObservation[],
 ): { sets: SetObservation[]; buzzerOn: boolean[] } {
   const layout = layoutOf(nl);
-  const { ringerOn, buzzerOn, lampCadence, lampLines } = observeLoads(nl, state, facts, lineStates, lines);
+  const loads = observeLoads(nl, state, facts, lineStates, lines);
+  const { ringerOn, buzzerOn, lampCode, lampLines } = loads;
+  let last = lastSets.get(nl);
+  if (!last) lastSets.set(nl, (last = new Array(nl.sets.length)));
   const sets: SetObservation[] = new Array(nl.sets.length);
   for (let si = 0; si < nl.sets.length; si++) {
+    const prev = last[si];
+    if (prev && stillSays(nl, prev, si, mech, facts, lineStates, loads, layout.lampOf[si])) {
+      sets[si] = prev;
+      continue;
+    }
     const s = nl.sets[si];
     const hears: number[] = [];
     const tones: { tone: ToneName; line: number }[] = [];
@@ -280,11 +388,11 @@ export function observeSets(
       keys[k] = {
         index: spec.index,
         label: spec.label,
-        lamp: el >= 0 ? (lampCadence[el] ?? 'dark') : 'dark',
-        lines: el >= 0 ? (lampLines[el] ?? []) : [],
+        lamp: CADENCE_BY_CODE[el >= 0 ? lampCode[el] : NO_LAMP],
+        lines: el >= 0 ? lineNumbers(nl, lampLines[el]) : [],
       };
     }
-    sets[si] = {
+    sets[si] = last[si] = {
       set: s.id,
       offHook: mech.offHook[si] === 1,
       pressedKey: mech.pressedKey[si] || null,
@@ -293,7 +401,7 @@ export function observeSets(
       hears,
       tones,
       buzzer: buzzerOn[si],
-      ringer: ringerOn[si],
+      ringer: ringerOn[si] === 1,
     };
   }
   return { sets, buzzerOn };

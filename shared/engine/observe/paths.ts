@@ -1,7 +1,7 @@
 /** Conductor paths: breadth-first search over wires and (optionally) the contacts closed in one state. */
 import { pairColour } from '../document/cable-code';
-import type { Netlist, PartInfo } from '../model/netlist';
-import { contactClosed, isContactClosed, type Mech } from '../model/nets';
+import { perNetlist, type Edge, type Netlist, type PartInfo, type TerminalInfo } from '../model/netlist';
+import { contactClosed, type Mech } from '../model/nets';
 import type { LeadSpec } from '../templates/template.types';
 import type { Hop } from './evaluation.types';
 
@@ -17,49 +17,51 @@ interface Adjacency {
   key: Int32Array;
 }
 
-const adjacencyCache = new WeakMap<Netlist, Adjacency>();
-
-function adjacency(nl: Netlist): Adjacency {
-  let adj = adjacencyCache.get(nl);
-  if (adj) return adj;
+const adjacency = perNetlist((nl): Adjacency => {
   const n = nl.terminals.length;
-  const degree = new Int32Array(n + 1);
-  for (const e of nl.edges) {
-    degree[e.a + 1]++;
-    degree[e.b + 1]++;
+  const { edgeA, edgeB, edgeContact } = nl;
+  const m = edgeA.length;
+  const offset = new Int32Array(n + 1);
+  for (let i = 0; i < m; i++) {
+    offset[edgeA[i] + 1]++;
+    offset[edgeB[i] + 1]++;
   }
-  for (let i = 0; i < n; i++) degree[i + 1] += degree[i];
-  const offset = degree.slice();
-  const fill = degree.slice();
-  const to = new Int32Array(nl.edges.length * 2);
-  const edge = new Int32Array(nl.edges.length * 2);
-  const contact = new Int32Array(nl.edges.length * 2);
-  nl.edges.forEach((e, i) => {
-    const c = e.kind === 'contact' ? e.contact! : -1;
-    to[fill[e.a]] = e.b;
-    contact[fill[e.a]] = c;
-    edge[fill[e.a]++] = i;
-    to[fill[e.b]] = e.a;
-    contact[fill[e.b]] = c;
-    edge[fill[e.b]++] = i;
-  });
-  adj = {
-    offset,
-    to,
-    edge,
-    contact,
-    cond: Int32Array.from(nl.contacts, (c) => c.cond),
-    mech: Int32Array.from(nl.contacts, (c) => c.mech),
-    key: Int32Array.from(nl.contacts, (c) => c.key),
-  };
-  adjacencyCache.set(nl, adj);
-  return adj;
-}
+  for (let i = 0; i < n; i++) offset[i + 1] += offset[i];
+  const fill = offset.slice(0, n);
+  const to = new Int32Array(m * 2);
+  const edge = new Int32Array(m * 2);
+  const contact = new Int32Array(m * 2);
+  for (let i = 0; i < m; i++) {
+    const a = edgeA[i];
+    const b = edgeB[i];
+    const c = edgeContact[i];
+    let k = fill[a]++;
+    to[k] = b;
+    contact[k] = c;
+    edge[k] = i;
+    k = fill[b]++;
+    to[k] = a;
+    contact[k] = c;
+    edge[k] = i;
+  }
+  const nc = nl.contacts.length;
+  const cond = new Int32Array(nc);
+  const mech = new Int32Array(nc);
+  const key = new Int32Array(nc);
+  for (let i = 0; i < nc; i++) {
+    const c = nl.contacts[i];
+    cond[i] = c.cond;
+    mech[i] = c.mech;
+    key[i] = c.key;
+  }
+  return { offset, to, edge, contact, cond, mech, key };
+});
 
 /**
- * Scratch arrays for a PathFinder, one per terminal. The breadth-first trees of one finder never share a terminal
- * (each stays inside its own net), so they share prev / prevEdge; a finder hands them back cleared (release), and
- * the next finder on the netlist takes them instead of allocating.
+ * Scratch arrays for a PathFinder, one entry per terminal. The breadth-first trees of one finder never share a
+ * terminal (each stays inside its own net), so they share prev / prevEdge; a finder hands them back cleared
+ * (release), and the next finder takes them instead of allocating, on this netlist or any other no larger (an edit
+ * makes a new netlist of about the same size).
  */
 interface Scratch {
   prev: Int32Array;
@@ -69,12 +71,17 @@ interface Scratch {
   stamp: number;
 }
 
-const scratchPool = new WeakMap<Netlist, Scratch[]>();
+const scratchPool: Scratch[] = [];
+/** Enough for the finders alive at once (one per evaluation in progress, and findPath). */
+const SCRATCH_POOL_MAX = 4;
 
 function takeScratch(nl: Netlist): Scratch {
-  const pooled = scratchPool.get(nl)?.pop();
-  if (pooled) return pooled;
   const n = nl.terminals.length;
+  for (let i = scratchPool.length - 1; i >= 0; i--) {
+    if (scratchPool[i].prev.length < n) continue;
+    const [sc] = scratchPool.splice(i, 1);
+    return sc;
+  }
   return {
     prev: new Int32Array(n).fill(-1),
     prevEdge: new Int32Array(n).fill(-1),
@@ -84,14 +91,10 @@ function takeScratch(nl: Netlist): Scratch {
   };
 }
 
-/** Scratch handed back cleared (prev and prevEdge all -1), for the next finder or path on the netlist. */
-function giveBack(nl: Netlist, sc: Scratch): void {
-  let pool = scratchPool.get(nl);
-  if (!pool) {
-    pool = [];
-    scratchPool.set(nl, pool);
-  }
-  pool.push(sc);
+/** Scratch handed back cleared (prev and prevEdge all -1), for the next finder or path. */
+function giveBack(sc: Scratch): void {
+  if (scratchPool.length >= SCRATCH_POOL_MAX) scratchPool.shift();
+  scratchPool.push(sc);
 }
 
 export interface TerminalPath {
@@ -114,8 +117,8 @@ export function findPath(nl: Netlist, from: number, to: number, mech: Mech | nul
     for (let k = adj.offset[t]; k < adj.offset[t + 1]; k++) {
       const next = adj.to[k];
       if (prev[next] !== -1) continue;
-      const e = nl.edges[adj.edge[k]];
-      if (e.kind === 'contact' && (!mech || !isContactClosed(nl.contacts[e.contact!], mech))) continue;
+      const c = adj.contact[k];
+      if (c >= 0 && (!mech || !contactClosed(adj.cond[c], adj.mech[c], adj.key[c], mech))) continue;
       prev[next] = t;
       prevEdge[next] = adj.edge[k];
       queue.push(next);
@@ -132,25 +135,55 @@ export function findPath(nl: Netlist, from: number, to: number, mech: Mech | nul
     found = { terms: terms.reverse(), edges: edges.reverse() };
   }
   for (let i = 0; i < queue.length; i++) prev[queue[i]] = prevEdge[queue[i]] = -1;
-  giveBack(nl, sc);
+  giveBack(sc);
   return found;
 }
 
 /**
- * Paths in one state from a few sources to many targets: one breadth-first tree per source, kept for the
- * evaluation (findings of one evaluation start from a handful of KSU terminals).
+ * A whole breadth-first tree of one net, kept between evaluations of the netlist. It is the same tree in any state
+ * where each contact next to one of its terminals is as it was (open or closed): wires never change, so the search
+ * then visits the same terminals in the same order. Paths read off it are kept with it.
+ */
+interface Tree {
+  root: number;
+  /** Terminals in breadth-first order, and for each its parent terminal and the edge from it. */
+  queue: Int32Array;
+  prev: Int32Array;
+  prevEdge: Int32Array;
+  /** Every contact next to a terminal of the tree, and whether it was closed. */
+  contacts: Int32Array;
+  closed: Uint8Array;
+  /** Keyed by from × terminal count + to. */
+  paths: Map<number, TerminalPath | null>;
+}
+
+/** Trees kept per netlist and root terminal, most recent last. */
+const treeCache = new WeakMap<Netlist, Map<number, Tree[]>>();
+/** Trees kept per root: a few states' worth (a net keeps its tree while the sets on it stay as they are). */
+const TREES_PER_ROOT = 4;
+/** Roots kept per netlist (least recently used go first). */
+const ROOTS_MAX = 256;
+
+let growQueue = new Int32Array(0);
+const grownContacts: number[] = [];
+
+/**
+ * Paths in one state from a few sources to many targets: one breadth-first tree per net, rooted at the first
+ * terminal asked for in it (findings of one evaluation start from a handful of KSU terminals), taken from an
+ * earlier evaluation when it still holds (see Tree).
  */
 export class PathFinder {
   private readonly trees = new Map<number, Tree>();
+  /** Trees whose parents are in the scratch arrays (only those a new path is walked on). */
+  private readonly loaded: Tree[] = [];
   /** Keyed by from × terminal count + to. */
   private readonly paths = new Map<number, TerminalPath | null>();
-  private readonly hops = new Map<TerminalPath, Hop[]>();
   private scratch: Scratch | null = null;
   private readonly adj: Adjacency;
 
   /**
-   * roots: the state's dense-component roots (from computeFacts), so the search stays inside the source's net;
-   * null with mech null: wires only, inside the source's static component.
+   * roots: the state's dense-component roots (from computeFacts), to tell which net a terminal is on; null with
+   * mech null: wires only, nets are the static components.
    */
   constructor(
     private readonly nl: Netlist,
@@ -164,7 +197,7 @@ export class PathFinder {
     const key = from * this.nl.terminals.length + to;
     const known = this.paths.get(key);
     if (known !== undefined) return known;
-    const found = this.trace(from, to);
+    const found = this.trace(from, to, key);
     this.paths.set(key, found);
     return found;
   }
@@ -178,39 +211,51 @@ export class PathFinder {
     if (!sc) return;
     this.scratch = null;
     const { prev, prevEdge } = sc;
-    for (const tree of this.trees.values()) {
+    for (const tree of this.loaded) {
       const { queue } = tree;
       for (let i = 0; i < queue.length; i++) {
         prev[queue[i]] = -1;
         prevEdge[queue[i]] = -1;
       }
     }
+    this.loaded.length = 0;
     this.trees.clear();
-    giveBack(this.nl, sc);
+    giveBack(sc);
   }
 
-  /**
-   * One breadth-first tree per net, rooted at the first terminal asked for in it; a path between two terminals of
-   * the net runs up the tree from one to their lowest common ancestor and down to the other.
-   */
-  private trace(from: number, to: number): TerminalPath | null {
+  /** The path between two terminals of one net: up the net's tree from one to their lowest common ancestor and down. */
+  private trace(from: number, to: number, key: number): TerminalPath | null {
     const net = this.netOf(from);
     if (net !== this.netOf(to)) return null;
-    const sc = (this.scratch ??= takeScratch(this.nl));
-    const { prev, prevEdge } = sc;
     let tree = this.trees.get(net);
     if (!tree) {
-      prev[from] = from;
-      tree = { queue: [from], head: 0 };
+      tree = this.treeFrom(from);
       this.trees.set(net, tree);
     }
-    this.growUntil(tree, from, net, prev, prevEdge);
-    this.growUntil(tree, to, net, prev, prevEdge);
-    if (prev[from] === -1 || prev[to] === -1) return null;
+    const known = tree.paths.get(key);
+    if (known !== undefined) return known;
+    const sc = (this.scratch ??= takeScratch(this.nl));
+    const { prev, prevEdge } = sc;
+    if (!this.loaded.includes(tree)) {
+      // into the scratch arrays, for the walks up the tree
+      this.loaded.push(tree);
+      const { queue } = tree;
+      for (let k = 0; k < queue.length; k++) {
+        prev[queue[k]] = tree.prev[k];
+        prevEdge[queue[k]] = tree.prevEdge[k];
+      }
+    }
+    let found: TerminalPath | null = null;
+    if (prev[from] !== -1 && prev[to] !== -1) found = this.walk(sc, from, to);
+    tree.paths.set(key, found);
+    return found;
+  }
+
+  private walk(sc: Scratch, from: number, to: number): TerminalPath {
+    const { prev, prevEdge, mark, position } = sc;
     const upFrom: number[] = [from];
     for (let t = from; prev[t] !== t; t = prev[t]) upFrom.push(prev[t]);
     const stamp = ++sc.stamp;
-    const { mark, position } = sc;
     for (let i = 0; i < upFrom.length; i++) {
       mark[upFrom[i]] = stamp;
       position[upFrom[i]] = i;
@@ -238,49 +283,98 @@ export class PathFinder {
 
   /** Hops of a path this finder returned; findings that share a path share one list. */
   hopsOf(path: TerminalPath): Hop[] {
-    let hops = this.hops.get(path);
-    if (!hops) {
-      hops = toHops(this.nl, path);
-      this.hops.set(path, hops);
-    }
-    return hops;
+    return hopsOfPath(this.nl, path);
   }
 
-  /** Breadth-first, resumable: grow the tree only until the target is reached. */
-  private growUntil(tree: Tree, target: number, net: number, prev: Int32Array, prevEdge: Int32Array): void {
-    if (prev[target] !== -1) return;
-    const { nl, mech } = this;
-    const { offset, to, edge, contact, cond, mech: owner, key } = this.adj;
-    const { queue } = tree;
-    const { dense, staticRoot } = nl;
-    const roots = this.roots;
-    let head = tree.head;
-    while (prev[target] === -1 && head < queue.length) {
-      const t = queue[head++];
+  /** The tree rooted at `root` in this state: a kept one that still holds, else grown now and kept. */
+  private treeFrom(root: number): Tree {
+    let byRoot = treeCache.get(this.nl);
+    if (!byRoot) treeCache.set(this.nl, (byRoot = new Map()));
+    const kept = byRoot.get(root);
+    if (kept) {
+      byRoot.delete(root);
+      byRoot.set(root, kept);
+      for (let i = kept.length - 1; i >= 0; i--) if (this.holds(kept[i])) return kept[i];
+    }
+    const tree = this.grow(root);
+    const list = kept ?? [];
+    if (list.length >= TREES_PER_ROOT) list.shift();
+    list.push(tree);
+    if (!kept) {
+      if (byRoot.size >= ROOTS_MAX) byRoot.delete(byRoot.keys().next().value!);
+      byRoot.set(root, list);
+    }
+    return tree;
+  }
+
+  private closed(c: number): boolean {
+    const { cond, mech: owner, key } = this.adj;
+    return this.mech !== null && contactClosed(cond[c], owner[c], key[c], this.mech);
+  }
+
+  private holds(tree: Tree): boolean {
+    const { contacts, closed } = tree;
+    for (let k = 0; k < contacts.length; k++)
+      if (this.closed(contacts[k]) !== (closed[k] === 1)) return false;
+    return true;
+  }
+
+  /** Breadth-first over wires and the contacts closed in this state, the whole net (the scratch is left clear). */
+  private grow(root: number): Tree {
+    const { offset, to, edge, contact } = this.adj;
+    const sc = (this.scratch ??= takeScratch(this.nl));
+    const { prev, prevEdge } = sc;
+    if (growQueue.length < this.nl.terminals.length) growQueue = new Int32Array(this.nl.terminals.length);
+    const queue = growQueue;
+    const contacts = grownContacts;
+    contacts.length = 0;
+    let tail = 0;
+    queue[tail++] = root;
+    prev[root] = root;
+    for (let head = 0; head < tail; head++) {
+      const t = queue[head];
       const end = offset[t + 1];
       for (let k = offset[t]; k < end; k++) {
+        const c = contact[k];
+        if (c >= 0) {
+          contacts.push(c);
+          if (!this.closed(c)) continue;
+        }
         const next = to[k];
         if (prev[next] !== -1) continue;
-        // A path between two terminals never leaves their net.
-        if (roots !== null) {
-          const d = dense[next];
-          if (d < 0 || roots[d] !== net) continue;
-        } else if (staticRoot[next] !== net) continue;
-        const c = contact[k];
-        if (c >= 0 && (mech === null || !contactClosed(cond[c], owner[c], key[c], mech))) continue;
         prev[next] = t;
         prevEdge[next] = edge[k];
-        queue.push(next);
+        queue[tail++] = next;
       }
     }
-    tree.head = head;
+    const tree: Tree = {
+      root,
+      queue: queue.slice(0, tail),
+      prev: new Int32Array(tail),
+      prevEdge: new Int32Array(tail),
+      contacts: Int32Array.from(contacts),
+      closed: new Uint8Array(contacts.length),
+      paths: new Map(),
+    };
+    for (let k = 0; k < tail; k++) {
+      const t = queue[k];
+      tree.prev[k] = prev[t];
+      tree.prevEdge[k] = prevEdge[t];
+      prev[t] = -1;
+      prevEdge[t] = -1;
+    }
+    for (let k = 0; k < contacts.length; k++) tree.closed[k] = this.closed(contacts[k]) ? 1 : 0;
+    return tree;
   }
 }
 
-interface Tree {
-  /** Terminals in breadth-first order; head: the next to expand. */
-  queue: number[];
-  head: number;
+const hopsByPath = new WeakMap<TerminalPath, Hop[]>();
+
+/** Hops of a path (a path belongs to one netlist); findings that share a path share one list. */
+function hopsOfPath(nl: Netlist, path: TerminalPath): Hop[] {
+  let hops = hopsByPath.get(path);
+  if (!hops) hopsByPath.set(path, (hops = toHops(nl, path)));
+  return hops;
 }
 
 const KSU_LEAD_NAMES: Record<string, string> = { T: 'tip', R: 'ring', A: 'A-lead', L: 'lamp lead' };
@@ -291,6 +385,11 @@ function portLabel(part: PartInfo, port: string): string {
 }
 
 const textCache = new WeakMap<Netlist, (string | undefined)[]>();
+/**
+ * Across netlists, by terminal object: a part wired as before (a cached wiring, model/netlist.ts) brings the same
+ * terminal objects, of a part with the same name, template and (for the KSU) stations, so the same text.
+ */
+const textByTerminal = new WeakMap<TerminalInfo, string>();
 
 export function terminalText(nl: Netlist, term: number): string {
   let texts = textCache.get(nl);
@@ -298,7 +397,14 @@ export function terminalText(nl: Netlist, term: number): string {
     texts = [];
     textCache.set(nl, texts);
   }
-  return (texts[term] ??= describeTerminal(nl, term));
+  let text = texts[term];
+  if (text === undefined) {
+    const t = nl.terminals[term];
+    text = textByTerminal.get(t);
+    if (text === undefined) textByTerminal.set(t, (text = describeTerminal(nl, term)));
+    texts[term] = text;
+  }
+  return text;
 }
 
 function describeTerminal(nl: Netlist, term: number): string {
@@ -320,6 +426,26 @@ function describeTerminal(nl: Netlist, term: number): string {
 
 const hopCache = new WeakMap<Netlist, (Map<number, Hop> | undefined)[]>();
 
+/**
+ * Across netlists, by the objects a hop is made of: the terminal and the wires before and after it (objects a
+ * cached wiring shares between netlists only where ids, labels and parts are as before). NO_EDGE stands for none.
+ */
+const NO_EDGE = {} as Edge;
+const hopByObjects = new WeakMap<TerminalInfo, WeakMap<Edge, WeakMap<Edge, Hop>>>();
+
+function sharedHop(nl: Netlist, path: TerminalPath, i: number): Hop {
+  const t = nl.terminals[path.terms[i]];
+  const via = i > 0 ? nl.edges[path.edges[i - 1]] : NO_EDGE;
+  const next = i < path.edges.length ? nl.edges[path.edges[i]] : NO_EDGE;
+  let byVia = hopByObjects.get(t);
+  if (!byVia) hopByObjects.set(t, (byVia = new WeakMap()));
+  let byNext = byVia.get(via);
+  if (!byNext) byVia.set(via, (byNext = new WeakMap()));
+  let hop = byNext.get(next);
+  if (!hop) byNext.set(next, (hop = makeHop(nl, path, i)));
+  return hop;
+}
+
 /** Hops depend only on the terminal and the wire or contact that reached it, so they are made once per netlist. */
 export function toHops(nl: Netlist, path: TerminalPath): Hop[] {
   let cache = hopCache.get(nl);
@@ -338,7 +464,7 @@ export function toHops(nl: Netlist, path: TerminalPath): Hop[] {
     const byEdges = (cache[term] ??= new Map());
     let hop = byEdges.get(key);
     if (!hop) {
-      hop = makeHop(nl, path, i);
+      hop = sharedHop(nl, path, i);
       byEdges.set(key, hop);
     }
     hops[i] = hop;

@@ -36,15 +36,17 @@ export function networkTerminal(f: FindingFacts, setIndex: number): number {
   return -1;
 }
 
+/** describeVia's sentences by path: a path belongs to one netlist, and findings (and evaluations) share paths. */
+const viaByPath = new WeakMap<TerminalPath, string>();
+
 /** ", because Front's talk pair (CT) on pair 23 … is bridged to …": once per path (findings share paths). */
 export function describeVia(f: FindingFacts, p: TerminalPath): string {
-  const cache = (f.via ??= new Map());
-  let text = cache.get(p);
+  let text = viaByPath.get(p);
   if (text === undefined) {
     const crossing = firstCrossing(f.nl, p);
     const lead = crossing ? null : firstUnitLeadSentence(f.nl, p);
     text = crossing ? `, because ${crossingSentence(crossing)}` : lead ? `, through ${lead}` : '';
-    cache.set(p, text);
+    viaByPath.set(p, text);
   }
   return text;
 }
@@ -52,9 +54,16 @@ export function describeVia(f: FindingFacts, p: TerminalPath): string {
 /** ": Front's talk pair … is bridged to Back's", or " along Front, Back", or "" without a path. */
 export function joinSentence(nl: Netlist, p: TerminalPath | null): string | null {
   if (!p) return null;
-  const crossing = firstCrossing(nl, p);
-  return crossing ? `: ${crossingSentence(crossing)}` : ` along ${unitsAlong(nl, p).join(', ')}`;
+  let text = joinByPath.get(p);
+  if (text === undefined) {
+    const crossing = firstCrossing(nl, p);
+    text = crossing ? `: ${crossingSentence(crossing)}` : ` along ${unitsAlong(nl, p).join(', ')}`;
+    joinByPath.set(p, text);
+  }
+  return text;
 }
+
+const joinByPath = new WeakMap<TerminalPath, string>();
 
 /** Sets with a line key down on one of these lines: the sets whose keys do the joining. */
 export function latchedOn(f: FindingFacts, lines: readonly number[]): SetInfo[] {

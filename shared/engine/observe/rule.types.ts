@@ -4,7 +4,7 @@ import type { Netlist } from '../model/netlist';
 import type { Mech } from '../model/nets';
 import type { LineState, SimState } from '../sim/state.schema';
 import type { Finding, FindingCode, LineObservation } from './evaluation.types';
-import type { PathFinder, TerminalPath } from './paths';
+import type { PathFinder } from './paths';
 
 /** The per-line observations the findings read (joinedWith empty when an event alone is asked about). */
 export type LineFacts = Pick<LineObservation, 'line' | 'status' | 'aClosed' | 'far' | 'joinedWith'>;
@@ -27,8 +27,6 @@ export interface FindingFacts {
   finder: PathFinder | null;
   /** Only what a KSU event adds to the findings of the sets' positions (see eventFindings). */
   eventsOnly: boolean;
-  /** describeVia's sentences of this evaluation's paths (findings share paths). */
-  via?: Map<TerminalPath, string>;
 }
 
 /** A finding kind that depends on the state: the sets' positions, a KSU event, or both. */

@@ -8,7 +8,7 @@
  */
 import { pinOf } from '../document/cable-code';
 import type { NetFacts } from '../model/facts';
-import type { ElementInfo, Netlist } from '../model/netlist';
+import { terminalId, type ElementInfo, type Netlist } from '../model/netlist';
 import { splitPins, wiringFaultWords } from '../model/cable-faults';
 import type { Evaluation } from './evaluation.types';
 
@@ -49,7 +49,7 @@ function layoutOf(nl: Netlist): WiringLayout {
       const terms = (pair: number) =>
         pins
           .filter((pin) => pin === pinOf(pair, 'tip') || pin === pinOf(pair, 'ring'))
-          .map((pin) => nl.terminalIndex.get(`${from.index}|${c.from.port}:${pin}`) ?? -1)
+          .map((pin) => terminalId(nl, from.index, `${c.from.port}:${pin}`))
           .filter((t) => t >= 0);
       if (fault.kind !== 'split-pair') continue;
       splits.push({
@@ -70,7 +70,16 @@ export function withWiringSymptoms(nl: Netlist, facts: NetFacts, ev: Evaluation)
   if (!polarised.length && !splits.length) return ev;
   const { roots, rootT, rootR } = facts;
   const root = (t: number) => (nl.dense[t] >= 0 ? roots[nl.dense[t]] : -1 - t);
-  const note = (owner: number, text: string) => (ev.sets[owner].notes ??= []).push(text);
+  // Observations may be kept from an earlier evaluation (observations.ts): what changes here is a copy.
+  const copiedSets = new Set<number>();
+  const note = (owner: number, text: string) => {
+    if (!copiedSets.has(owner)) {
+      copiedSets.add(owner);
+      const obs = ev.sets[owner];
+      ev.sets[owner] = { ...obs, ...(obs.notes ? { notes: [...obs.notes] } : {}) };
+    }
+    (ev.sets[owner].notes ??= []).push(text);
+  };
 
   for (const { element: e, fails } of polarised) {
     const ra = root(e.a);
@@ -79,7 +88,10 @@ export function withWiringSymptoms(nl: Netlist, facts: NetFacts, ev: Evaluation)
     if (e.kind !== 'network') continue;
     for (const i of facts.hears[e.owner]) {
       if (ra === rootR[i] && rb === rootT[i])
-        note(e.owner, `On line ${nl.lines[i].number} ${fails} does not work: tip and ring reach it reversed.`);
+        note(
+          e.owner,
+          `On line ${nl.lines[i].number} ${fails} does not work: tip and ring reach it reversed.`,
+        );
     }
   }
 

@@ -23,6 +23,17 @@ export function initialState(plan: Plan): SimState {
   };
 }
 
+/** Without the fields left undefined, as a JSON round trip would have it. */
+function definedOnly<T extends object>(x: T): T {
+  for (const k of Object.keys(x) as (keyof T)[]) if (x[k] === undefined) delete x[k];
+  return x;
+}
+
+/** A line state the action may change, as its own copy (a line state holds plain values and its far end's). */
+function copyLineState(s: LineState): LineState {
+  return definedOnly({ ...s, far: s.far && definedOnly({ ...s.far }) });
+}
+
 /** A state completed with defaults for every set and line of the plan (for states written by hand). */
 export function normaliseState(plan: Plan, state: SimState): SimState {
   const base = initialState(plan);
@@ -37,7 +48,7 @@ export function normaliseState(plan: Plan, state: SimState): SimState {
   }
   base.lines = base.lines.map((l) => {
     const s = state.lines.find((x) => x.line === l.line);
-    return s ? (JSON.parse(JSON.stringify(s)) as LineState) : l;
+    return s ? copyLineState(s) : l;
   });
   base.intercom = { calling: state.intercom?.calling ?? null };
   return base;

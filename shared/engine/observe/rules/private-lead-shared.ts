@@ -3,7 +3,14 @@
  * cross-connect: wiring that is wrong in every state, whatever the keys and hookswitches do.
  */
 import { pairColour } from '../../document/cable-code';
-import type { Netlist, PartInfo } from '../../model/netlist';
+import {
+  KIND_BRIDGE,
+  KIND_CABLE,
+  KIND_CROSS_CONNECT,
+  KIND_LEAD,
+  type Netlist,
+  type PartInfo,
+} from '../../model/netlist';
 import type { Finding } from '../evaluation.types';
 import { findPath, firstCrossing, crossingSentence, toHops } from '../paths';
 import type { WiringRule } from '../rule.types';
@@ -26,38 +33,62 @@ function partners(a: PartInfo, b: PartInfo): boolean {
 
 /**
  * What meets each private lead in the cabling: follow the conductor from the lead's pin through cables and
- * adapters only (never through another part's terminals), and list the part terminals wired to it.
+ * adapters only (never through another part's terminals), and list the part terminals wired to it. Linear in the
+ * netlist (flat arrays, no per-terminal lists), apart from the pairs of parts it reports.
  */
+/** Scratch for collect (evaluation is synchronous), grown to the largest netlist seen. */
+let buffer = new Int32Array(0);
+
 function collect(nl: Netlist): Shared[] {
-  const n = nl.terminals.length;
-  const parent = new Int32Array(n);
+  const { terminals, edges, parts } = nl;
+  const n = terminals.length;
+  if (buffer.length < 3 * n) buffer = new Int32Array(3 * n);
+  const parent = buffer.subarray(0, n);
   for (let i = 0; i < n; i++) parent[i] = i;
   const find = (x: number): number => {
     while (parent[x] !== x) x = parent[x] = parent[parent[x]];
     return x;
   };
-  for (const e of nl.edges) {
-    if (e.kind === 'cable' || e.kind === 'bridge') parent[find(e.a)] = find(e.b);
+  const { edgeA, edgeB, edgeKind } = nl;
+  const m = edgeA.length;
+  for (let k = 0; k < m; k++) {
+    const kind = edgeKind[k];
+    if (kind === KIND_CABLE || kind === KIND_BRIDGE) parent[find(edgeA[k])] = find(edgeB[k]);
   }
-  const attached = new Map<number, number[]>();
-  const wired = nl.edges.filter((e) => e.kind === 'lead' || e.kind === 'cross-connect');
-  for (const e of wired) {
-    const [term, pin] = nl.terminals[e.a].pin === undefined ? [e.a, e.b] : [e.b, e.a];
-    const r = find(pin);
-    const list = attached.get(r);
-    if (list) list.push(term);
-    else attached.set(r, [term]);
+  // Per conductor (root): the part terminals wired to it, in edge order, as a linked list over the wired edges.
+  const first = buffer.subarray(n, 2 * n).fill(-1);
+  const last = buffer.subarray(2 * n, 3 * n);
+  const next: number[] = [];
+  const attachedTerm: number[] = [];
+  const privateLeads: number[] = [];
+  for (let k = 0; k < m; k++) {
+    const kind = edgeKind[k];
+    if (kind !== KIND_LEAD && kind !== KIND_CROSS_CONNECT) continue;
+    if (kind === KIND_LEAD && edges[k].lead?.scope === 'private') privateLeads.push(k);
+    const a = edgeA[k];
+    const aIsPin = terminals[a].pin !== undefined;
+    const term = aIsPin ? edgeB[k] : a;
+    const r = find(aIsPin ? a : edgeB[k]);
+    const at = attachedTerm.length;
+    attachedTerm.push(term);
+    next.push(-1);
+    if (first[r] < 0) first[r] = at;
+    else next[last[r]] = at;
+    last[r] = at;
   }
-  const found = new Map<string, Shared>();
-  for (const e of nl.edges) {
-    if (e.kind !== 'lead' || e.lead?.scope !== 'private') continue;
-    const owner = nl.parts[nl.terminals[e.a].part];
-    const pinPair = nl.terminals[e.b].pair!;
-    for (const otherTerm of attached.get(find(e.b)) ?? []) {
-      const other = nl.parts[nl.terminals[otherTerm].part];
+  const found = new Map<number, Shared>();
+  for (const k of privateLeads) {
+    const e = edges[k];
+    const owner = parts[terminals[e.a].part];
+    const pinPair = terminals[e.b].pair!;
+    for (let k = first[find(e.b)]; k >= 0; k = next[k]) {
+      const otherTerm = attachedTerm[k];
+      const other = parts[terminals[otherTerm].part];
       if (other === owner || partners(owner, other)) continue;
       const key =
-        owner.index < other.index ? `${owner.index}|${other.index}` : `${other.index}|${owner.index}`;
+        owner.index < other.index
+          ? owner.index * parts.length + other.index
+          : other.index * parts.length + owner.index;
       let s = found.get(key);
       if (!s) {
         s = { owner, other, pairs: [], from: e.a, to: otherTerm };

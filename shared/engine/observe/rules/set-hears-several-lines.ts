@@ -2,6 +2,7 @@
 import { listWords } from '../../document/words';
 import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
+import { bySetFinding, memoFinding } from '../finding-memo';
 
 export const setHearsSeveralLines: StateRule<'SET_HEARS_SEVERAL_LINES'> = {
   kind: 'state',
@@ -10,22 +11,32 @@ export const setHearsSeveralLines: StateRule<'SET_HEARS_SEVERAL_LINES'> = {
   bySet: true,
   find(f, out) {
     const { nl, facts, finder } = f;
+    const nLines = nl.lines.length;
     for (const s of nl.sets) {
       const heard = facts.hears[s.index];
       if (heard.length < 2) continue;
-      const heardNumbers = heard.map((i) => nl.lines[i].number);
       const networkTip = finder ? networkTerminal(f, s.index) : -1;
-      const stray = heard.find((i) => !f.selected[s.index].includes(nl.lines[i].number)) ?? heard[1];
+      const selected = f.selected[s.index];
+      const stray = heard.find((i) => !selected.includes(nl.lines[i].number)) ?? heard[1];
       const p = networkTip >= 0 ? pathIn(finder, nl.lines[stray].t, networkTip) : null;
-      out.push({
-        code: 'SET_HEARS_SEVERAL_LINES',
-        severity: 'fault',
-        sets: [s.id],
-        lines: heardNumbers,
-        stations: [],
-        message: `${s.name} hears lines ${listWords(heardNumbers)} at once${p ? describeVia(f, p) : ''}.`,
-        path: hopsOf(finder, p),
-      });
+      // what the finding says: the set, the lines it hears (one bit each, up to 20 lines) and the path
+      let heardBits = 0;
+      for (const i of heard) heardBits |= 1 << i;
+      const key = nLines <= 20 ? s.index * (1 << 20) + heardBits : -1;
+      out.push(
+        memoFinding(nl, 'SET_HEARS_SEVERAL_LINES', key, p, () => {
+          const heardNumbers = heard.map((i) => nl.lines[i].number);
+          return bySetFinding(nl, {
+            code: 'SET_HEARS_SEVERAL_LINES',
+            severity: 'fault',
+            sets: [s.id],
+            lines: heardNumbers,
+            stations: [],
+            message: `${s.name} hears lines ${listWords(heardNumbers)} at once${p ? describeVia(f, p) : ''}.`,
+            path: hopsOf(finder, p),
+          });
+        }),
+      );
     }
   },
 };

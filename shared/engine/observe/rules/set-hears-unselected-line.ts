@@ -1,6 +1,8 @@
 /** A set's speech network on a line its keys did not select. */
 import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
+import type { Finding } from '../evaluation.types';
+import { bySetFinding, KEY_SLOTS, memoFinding } from '../finding-memo';
 
 export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
   kind: 'state',
@@ -9,28 +11,35 @@ export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
   bySet: true,
   find(f, out) {
     const { nl, mech, facts, finder } = f;
+    const nLines = nl.lines.length;
     for (const s of nl.sets) {
       const heard = facts.hears[s.index];
       if (!heard.length) continue;
       const selected = f.selected[s.index];
       const networkTip = finder ? networkTerminal(f, s.index) : -1;
+      const pressed = mech.pressedKey[s.index];
       for (const i of heard) {
         const line = nl.lines[i].number;
         if (selected.includes(line)) continue;
         const p = networkTip >= 0 ? pathIn(finder, nl.lines[i].t, networkTip) : null;
-        const keyText =
-          mech.pressedKey[s.index] > 0
-            ? `with line key ${selected.join(', ')} down`
-            : 'with no line key down';
-        out.push({
-          code: 'SET_HEARS_UNSELECTED_LINE',
-          severity: 'fault',
-          sets: [s.id],
-          lines: [line],
-          stations: [],
-          message: `${s.name} hears line ${line} ${keyText}${p ? describeVia(f, p) : ''}.`,
-          path: hopsOf(finder, p),
-        });
+        // what the finding says: the set, the line, the key latched (it decides the selected lines), the path
+        const key = (s.index * nLines + i) * KEY_SLOTS + pressed;
+        out.push(
+          memoFinding(nl, 'SET_HEARS_UNSELECTED_LINE', key, p, () => {
+            const keyText =
+              pressed > 0 ? `with line key ${selected.join(', ')} down` : 'with no line key down';
+            const finding: Finding = {
+              code: 'SET_HEARS_UNSELECTED_LINE',
+              severity: 'fault',
+              sets: [s.id],
+              lines: [line],
+              stations: [],
+              message: `${s.name} hears line ${line} ${keyText}${p ? describeVia(f, p) : ''}.`,
+              path: hopsOf(finder, p),
+            };
+            return bySetFinding(nl, finding);
+          }),
+        );
       }
     }
   },
