@@ -166,7 +166,8 @@ async function solveLoop(
   const ports = stationPortOfSets(plan);
   const maxRounds = opts.maxRounds ?? 40;
   let after: Finding[] = [];
-  let failures: RequiredFailure[] = [];
+  // The required functions of the last changed plan, checked on first use (see below).
+  let failuresOf = (): RequiredFailure[] => [];
   for (let round = 1; round <= maxRounds; round++) {
     if (opts.shouldStop?.()) break;
     const { text, names } = lpText(ps, allowed);
@@ -180,7 +181,7 @@ async function solveLoop(
         weight: 0,
         rounds: round,
         after,
-        failures,
+        failures: failuresOf(),
         verifiedBy: 'none',
         stopped: false,
         blocking: {
@@ -199,16 +200,19 @@ async function solveLoop(
     const weight = chosen.reduce((s, c) => s + CHANGE_WEIGHT + c.rank, 0);
     const cured = withChanges(plan, chosen.map(publicChange));
     const swept = sweep(cured);
-    failures = checkRequired(cured);
     after = swept.findings.map((f) => f.finding);
-    if (after.length === 0 && failures.length === 0) {
+    // The required functions only decide a round whose sweep is clean (a round with findings fails either way and
+    // adds no constraint from them); otherwise they are checked when the loop ends without a cure, for its report.
+    let failures: RequiredFailure[] | null = null;
+    failuresOf = () => (failures ??= checkRequired(cured));
+    if (after.length === 0 && failuresOf().length === 0) {
       return {
         ok: true,
         chosen,
         weight,
         rounds: round,
         after,
-        failures,
+        failures: [],
         verifiedBy: swept.complete ? 'complete-sweep' : 'partial-sweep',
         stopped: false,
       };
@@ -224,7 +228,7 @@ async function solveLoop(
     weight: 0,
     rounds: maxRounds,
     after,
-    failures,
+    failures: failuresOf(),
     verifiedBy: 'none',
     stopped: true,
   };
@@ -281,7 +285,10 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
   const ports = stationPortOfSets(plan);
   const first = sweep(plan);
   const before = first.findings.map((f) => f.finding);
-  const baseFailures = checkRequired(plan);
+  // The plan's own required functions: they decide only whether a plan with no finding needs a cure, and are
+  // reported when there is no cure.
+  let baseChecked: RequiredFailure[] | null = null;
+  const baseFailures = () => (baseChecked ??= checkRequired(plan));
   const ps: Problemset = { candidates: new Map(), constraints: [], seen: new Set() };
   const none = {
     changes: [],
@@ -290,7 +297,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
     proofOfMinimality: 'exhaustive' as const,
     choices: [] as CureChoiceCost[],
   };
-  if (before.length === 0 && baseFailures.length === 0) {
+  if (before.length === 0 && baseFailures().length === 0) {
     return {
       ...none,
       ok: true,
@@ -307,7 +314,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
     if (!addCover(ps, plan, { finding: f.finding }, ports)) {
       return noCure(
         before,
-        baseFailures,
+        baseFailures(),
         { finding: f.finding, reason: 'no change the cure may make touches its conductor path' },
         first.complete,
       );
@@ -323,7 +330,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
     return {
       ...noCure(
         before,
-        loop.failures.length ? loop.failures : baseFailures,
+        loop.failures.length ? loop.failures : baseFailures(),
         loop.blocking ?? {
           finding: blockingFinding,
           reason: loop.stopped
