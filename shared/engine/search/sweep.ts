@@ -198,13 +198,19 @@ function forEachCombination(
   const combo = new Array<number>(n).fill(0);
   // Largest size the sets from i on can still add, for pruning.
   const rest = new Array<number>(n + 1).fill(0);
-  for (let i = n - 1; i >= 0; i--) rest[i] = rest[i + 1] + Math.max(...sizes[i]);
+  // Largest size one set from i on can add: the sets still allowed to leave idle add at most that much each.
+  const largest = new Array<number>(n + 1).fill(0);
+  for (let i = n - 1; i >= 0; i--) {
+    const most = Math.max(...sizes[i]);
+    rest[i] = rest[i + 1] + most;
+    largest[i] = Math.max(largest[i + 1], most);
+  }
   const active: number[] = [];
 
   function fill(i: number, budget: number): boolean {
     if (budget === 0) return visit(combo);
-    // No set may leave idle any more: the budget can no longer be spent (and would be walked set by set).
-    if (i === n || budget > rest[i] || active.length >= maxActive) return true;
+    // Pruned: no combination from here spends the budget (the walk would otherwise go on set by set).
+    if (i === n || budget > rest[i] || budget > (maxActive - active.length) * largest[i]) return true;
     if (!fill(i + 1, budget)) return false;
     if (active.some((j) => !sameGroup(i, j))) return true;
     for (let m = 1; m < moves[i].length; m++) {
