@@ -187,6 +187,19 @@ export function moveCandidates(plan: Plan, setId: string, ports: number[]): Cand
   return out;
 }
 
+/** Every lift candidate in these sets and the add-ons serving them. */
+export function liftsOf(plan: Plan, setIds: readonly string[]): Candidate[] {
+  const out: Candidate[] = [];
+  for (const id of setIds) {
+    for (const part of [id, ...plan.addOns.filter((a) => a.serves === id).map((a) => a.id)]) {
+      for (const pair of new Set(partLeads(plan, part)?.leads.map((l) => l.pair) ?? [])) {
+        if (pair !== null) out.push(...liftCandidates(plan, part, pair));
+      }
+    }
+  }
+  return out;
+}
+
 /**
  * Candidates for clearing one problem, taken from its conductor path or, for required functions, its sets. Every
  * finding with a path (joined lines, a line on a control lead, ringing over joined lines, …) gets the lifts of the
@@ -195,15 +208,7 @@ export function moveCandidates(plan: Plan, setId: string, ports: number[]): Cand
 export function candidatesFor(plan: Plan, problem: Problem, ports: number[]): Candidate[] {
   const out: Candidate[] = [];
   const isPart = (id: string) => findLeadPart(plan, id) !== undefined;
-  const everyLeadOf = (setIds: string[]) => {
-    for (const id of setIds) {
-      for (const part of [id, ...plan.addOns.filter((a) => a.serves === id).map((a) => a.id)]) {
-        for (const pair of new Set(partLeads(plan, part)?.leads.map((l) => l.pair) ?? [])) {
-          if (pair !== null) out.push(...liftCandidates(plan, part, pair));
-        }
-      }
-    }
-  };
+  const everyLeadOf = (setIds: string[]) => out.push(...liftsOf(plan, setIds));
   if ('finding' in problem) {
     const { finding } = problem;
     for (const hop of finding.path) {
