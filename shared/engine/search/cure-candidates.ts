@@ -75,6 +75,19 @@ function liftBreaksRequired(plan: Plan, view: PartLeads, leads: readonly PlacedL
  * function and lifting that lead alone would not.
  */
 export function liftCandidates(plan: Plan, partId: string, pair: number): Candidate[] {
+  let byPair = liftCache.get(plan);
+  if (!byPair) liftCache.set(plan, (byPair = new Map()));
+  const key = `${partId}|${pair}`;
+  let out = byPair.get(key);
+  if (!out) byPair.set(key, (out = liftCandidatesOf(plan, partId, pair)));
+  // Copies: a caller may keep or change what it is given (a cure's result holds its changes).
+  return out.map((c) => ({ ...c, change: { ...c.change } }));
+}
+
+/** liftCandidates per plan object, part and pair: a cure asks again for every finding whose path crosses a lead. */
+const liftCache = new WeakMap<Plan, Map<string, readonly Candidate[]>>();
+
+function liftCandidatesOf(plan: Plan, partId: string, pair: number): Candidate[] {
   const view = partLeads(plan, partId);
   if (!view) return [];
   const here = view.leads.filter((l) => l.pair === pair);
