@@ -75,6 +75,19 @@ function liftBreaksRequired(plan: Plan, view: PartLeads, leads: readonly PlacedL
  * function and lifting that lead alone would not.
  */
 export function liftCandidates(plan: Plan, partId: string, pair: number): Candidate[] {
+  let byPair = liftCache.get(plan);
+  if (!byPair) liftCache.set(plan, (byPair = new Map()));
+  const key = `${partId}|${pair}`;
+  let out = byPair.get(key);
+  if (!out) byPair.set(key, (out = liftCandidatesOf(plan, partId, pair)));
+  // Copies: a caller may keep or change what it is given (a cure's result holds its changes).
+  return out.map((c) => ({ ...c, change: { ...c.change } }));
+}
+
+/** liftCandidates per plan object, part and pair: a cure asks again for every finding whose path crosses a lead. */
+const liftCache = new WeakMap<Plan, Map<string, readonly Candidate[]>>();
+
+function liftCandidatesOf(plan: Plan, partId: string, pair: number): Candidate[] {
   const view = partLeads(plan, partId);
   if (!view) return [];
   const here = view.leads.filter((l) => l.pair === pair);
@@ -187,6 +200,19 @@ export function moveCandidates(plan: Plan, setId: string, ports: number[]): Cand
   return out;
 }
 
+/** Every lift candidate in these sets and the add-ons serving them. */
+export function liftsOf(plan: Plan, setIds: readonly string[]): Candidate[] {
+  const out: Candidate[] = [];
+  for (const id of setIds) {
+    for (const part of [id, ...plan.addOns.filter((a) => a.serves === id).map((a) => a.id)]) {
+      for (const pair of new Set(partLeads(plan, part)?.leads.map((l) => l.pair) ?? [])) {
+        if (pair !== null) out.push(...liftCandidates(plan, part, pair));
+      }
+    }
+  }
+  return out;
+}
+
 /**
  * Candidates for clearing one problem, taken from its conductor path or, for required functions, its sets. Every
  * finding with a path (joined lines, a line on a control lead, ringing over joined lines, …) gets the lifts of the
@@ -195,15 +221,7 @@ export function moveCandidates(plan: Plan, setId: string, ports: number[]): Cand
 export function candidatesFor(plan: Plan, problem: Problem, ports: number[]): Candidate[] {
   const out: Candidate[] = [];
   const isPart = (id: string) => findLeadPart(plan, id) !== undefined;
-  const everyLeadOf = (setIds: string[]) => {
-    for (const id of setIds) {
-      for (const part of [id, ...plan.addOns.filter((a) => a.serves === id).map((a) => a.id)]) {
-        for (const pair of new Set(partLeads(plan, part)?.leads.map((l) => l.pair) ?? [])) {
-          if (pair !== null) out.push(...liftCandidates(plan, part, pair));
-        }
-      }
-    }
-  };
+  const everyLeadOf = (setIds: string[]) => out.push(...liftsOf(plan, setIds));
   if ('finding' in problem) {
     const { finding } = problem;
     for (const hop of finding.path) {

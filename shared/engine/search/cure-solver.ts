@@ -5,7 +5,8 @@
  */
 import type { LegacyHighs } from 'highs';
 import { publicChange, withChanges, type CureResult } from './cure';
-import { candidatesFor, type Candidate, type Problem } from './cure-candidates';
+import { candidatesFor, liftsOf, type Candidate, type Problem } from './cure-candidates';
+import { seedWiringCovers } from './cure-seeds';
 import { stationPortOfSets, sweep } from './sweep';
 import { checkRequired, type RequiredFailure } from './required';
 import type { Finding, Plan } from './engine-port';
@@ -52,7 +53,9 @@ type Constraint =
   /** At least one of these. */
   | { kind: 'cover'; ids: string[] }
   /** Not exactly this combination (a no-good cut): sum(in) - sum(out) <= |in| - 1. */
-  | { kind: 'not-exactly'; ids: string[] };
+  | { kind: 'not-exactly'; ids: string[] }
+  /** Total weight at most this. */
+  | { kind: 'weight-at-most'; max: number };
 
 let solverPromise: Promise<LegacyHighs> | null = null;
 function defaultSolver(): Promise<LegacyHighs> {
@@ -80,10 +83,9 @@ function lpText(
     vars.push(name);
   }
   const weight = (id: string) => CHANGE_WEIGHT + ps.candidates.get(id)!.rank;
-  const lines: string[] = [
-    'Minimize',
-    ` obj: ${vars.map((v, i) => `${weight([...names.keys()][i])} ${v}`).join(' + ') || '0 x_empty'}`,
-  ];
+  const ids = [...names.keys()];
+  const objective = vars.map((v, i) => `${weight(ids[i])} ${v}`).join(' + ') || '0 x_empty';
+  const lines: string[] = ['Minimize', ` obj: ${objective}`];
   lines.push('Subject To');
   let row = 0;
   const term = (ids: string[]) => ids.filter((id) => names.has(id)).map((id) => names.get(id)!);
@@ -92,6 +94,8 @@ function lpText(
       const t = term(con.ids);
       if (t.length === 0) lines.push(` r${row++}: 0 x_empty >= 1`);
       else lines.push(` r${row++}: ${t.join(' + ')} >= 1`);
+    } else if (con.kind === 'weight-at-most') {
+      lines.push(` r${row++}: ${objective} <= ${con.max}`);
     } else {
       const inside = new Set(term(con.ids));
       const outside = vars.filter((v) => !inside.has(v));
@@ -128,16 +132,64 @@ function leadHopsOnly(problem: Problem): Problem {
 
 /** Adds the constraint "some candidate of this problem is chosen"; false when the problem has no candidate. */
 function addCover(ps: Problemset, plan: Plan, problem: Problem, ports: number[]): boolean {
+  return coverOf(ps, plan, problem, ports).length > 0;
+}
+
+/** addCover, returning the problem's candidates. */
+function coverOf(ps: Problemset, plan: Plan, problem: Problem, ports: number[]): Candidate[] {
   const cands = candidatesFor(plan, leadHopsOnly(problem), ports);
   const key = cands
     .map((c) => c.id)
     .sort()
     .join(' ');
-  if (ps.seen.has(key)) return cands.length > 0;
+  if (ps.seen.has(key)) return cands;
   ps.seen.add(key);
   for (const c of cands) if (!ps.candidates.has(c.id)) ps.candidates.set(c.id, c);
   ps.constraints.push({ kind: 'cover', ids: cands.map((c) => c.id) });
-  return cands.length > 0;
+  return cands;
+}
+
+/**
+ * The cure with seeded covers (cure-seeds.ts), kept only when the integer program has no other solution of its
+ * weight: every cover is a necessary condition, so the cure the unseeded rounds find (a verified cure of the same,
+ * smallest weight) satisfies every seeded constraint too, and being the only solution of that weight it is this
+ * one. Otherwise null, and the unseeded rounds run: which of several equal cures the solver picks depends on the
+ * constraints it was given, and the answer stays the one those rounds give. Only where every candidate is a lift:
+ * a finding seen after a buzzer move may need the move (a move adds a connection), so covers taken from changed
+ * plans, and the candidates offered there, then depend on which changed plans the rounds look at.
+ */
+async function seededLoop(
+  plan: Plan,
+  ps: Problemset,
+  allowed: (c: Candidate) => boolean,
+  opts: OptimalCureOptions,
+  ports: number[],
+): Promise<LoopResult | null> {
+  if ([...ps.candidates.values()].some((c) => c.kind === 'move')) return null;
+  const seeded: Problemset = {
+    candidates: new Map(ps.candidates),
+    constraints: [...ps.constraints],
+    seen: new Set(ps.seen),
+  };
+  seedWiringCovers(plan, (seedPlan, finding) => coverOf(seeded, seedPlan, { finding }, ports));
+  if (seeded.constraints.length === ps.constraints.length) return null;
+  const loop = await solveLoop(plan, seeded, allowed, opts);
+  if (!loop.ok || loop.chosen.some((c) => c.kind === 'move')) return null;
+  // Any other cure of this weight, over every lift the plan has (the unseeded rounds may offer lifts these rounds
+  // never saw). Weights are multiples of 1/1000 (cure-candidates.ts): half of that is no other weight.
+  const check: Problemset = { ...seeded, candidates: new Map(seeded.candidates) };
+  for (const c of liftsOf(
+    plan,
+    plan.sets.map((s) => s.id),
+  ))
+    if (!check.candidates.has(c.id)) check.candidates.set(c.id, c);
+  check.constraints = [
+    ...seeded.constraints,
+    { kind: 'weight-at-most', max: loop.weight + 0.0005 },
+    { kind: 'not-exactly', ids: loop.chosen.map((c) => c.id) },
+  ];
+  const highs = await (opts.loadSolver ?? defaultSolver)();
+  return highs.solve(lpText(check, allowed).text).Status === 'Infeasible' ? loop : null;
 }
 
 interface LoopResult {
@@ -166,7 +218,8 @@ async function solveLoop(
   const ports = stationPortOfSets(plan);
   const maxRounds = opts.maxRounds ?? 40;
   let after: Finding[] = [];
-  let failures: RequiredFailure[] = [];
+  // The required functions of the last changed plan, checked on first use (see below).
+  let failuresOf = (): RequiredFailure[] => [];
   for (let round = 1; round <= maxRounds; round++) {
     if (opts.shouldStop?.()) break;
     const { text, names } = lpText(ps, allowed);
@@ -180,7 +233,7 @@ async function solveLoop(
         weight: 0,
         rounds: round,
         after,
-        failures,
+        failures: failuresOf(),
         verifiedBy: 'none',
         stopped: false,
         blocking: {
@@ -199,16 +252,19 @@ async function solveLoop(
     const weight = chosen.reduce((s, c) => s + CHANGE_WEIGHT + c.rank, 0);
     const cured = withChanges(plan, chosen.map(publicChange));
     const swept = sweep(cured);
-    failures = checkRequired(cured);
     after = swept.findings.map((f) => f.finding);
-    if (after.length === 0 && failures.length === 0) {
+    // The required functions only decide a round whose sweep is clean (a round with findings fails either way and
+    // adds no constraint from them); otherwise they are checked when the loop ends without a cure, for its report.
+    let failures: RequiredFailure[] | null = null;
+    failuresOf = () => (failures ??= checkRequired(cured));
+    if (after.length === 0 && failuresOf().length === 0) {
       return {
         ok: true,
         chosen,
         weight,
         rounds: round,
         after,
-        failures,
+        failures: [],
         verifiedBy: swept.complete ? 'complete-sweep' : 'partial-sweep',
         stopped: false,
       };
@@ -224,7 +280,7 @@ async function solveLoop(
     weight: 0,
     rounds: maxRounds,
     after,
-    failures,
+    failures: failuresOf(),
     verifiedBy: 'none',
     stopped: true,
   };
@@ -281,7 +337,10 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
   const ports = stationPortOfSets(plan);
   const first = sweep(plan);
   const before = first.findings.map((f) => f.finding);
-  const baseFailures = checkRequired(plan);
+  // The plan's own required functions: they decide only whether a plan with no finding needs a cure, and are
+  // reported when there is no cure.
+  let baseChecked: RequiredFailure[] | null = null;
+  const baseFailures = () => (baseChecked ??= checkRequired(plan));
   const ps: Problemset = { candidates: new Map(), constraints: [], seen: new Set() };
   const none = {
     changes: [],
@@ -290,7 +349,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
     proofOfMinimality: 'exhaustive' as const,
     choices: [] as CureChoiceCost[],
   };
-  if (before.length === 0 && baseFailures.length === 0) {
+  if (before.length === 0 && baseFailures().length === 0) {
     return {
       ...none,
       ok: true,
@@ -307,7 +366,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
     if (!addCover(ps, plan, { finding: f.finding }, ports)) {
       return noCure(
         before,
-        baseFailures,
+        baseFailures(),
         { finding: f.finding, reason: 'no change the cure may make touches its conductor path' },
         first.complete,
       );
@@ -315,7 +374,9 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
   }
   const forbidden = partsOf(plan, untouched);
   const allowedWith = (blocked: Set<string>) => (c: Candidate) => !blocked.has(c.part);
-  const loop = await solveLoop(plan, ps, allowedWith(forbidden), opts);
+  const allowed = allowedWith(forbidden);
+  const loop =
+    (await seededLoop(plan, ps, allowed, opts, ports)) ?? (await solveLoop(plan, ps, allowed, opts));
 
   const choices: CureChoiceCost[] = [];
   if (!loop.ok) {
@@ -323,7 +384,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
     return {
       ...noCure(
         before,
-        loop.failures.length ? loop.failures : baseFailures,
+        loop.failures.length ? loop.failures : baseFailures(),
         loop.blocking ?? {
           finding: blockingFinding,
           reason: loop.stopped

@@ -26,6 +26,8 @@ export {
   createMechFor,
 } from '../observe/evaluate';
 export { findingKey } from '../observe/finding-key';
+export { wiringFindings } from '../observe/findings';
+export { lineStatesOf, observeLines, observeSets, observeStations } from '../observe/observations';
 export type { Plan, LeadChange, CrossConnect, KeySet, AddOn } from '../document/plan.schema';
 export type { SimState, SimAction, SetState } from '../sim/state.schema';
 export type { Evaluation, Finding, FindingCode, Hop } from '../observe/evaluation.types';

@@ -5,10 +5,15 @@
  */
 import {
   applyActions,
+  computeNets,
   findSet,
-  evaluate,
+  getNetlist,
   getTemplate,
   initialState,
+  lineStatesOf,
+  observeLines,
+  observeSets,
+  observeStations,
   type Evaluation,
   type Plan,
   type SimAction,
@@ -24,9 +29,17 @@ export interface RequiredFailure {
   message: string;
 }
 
-/** What the sets and lines do in a state: the observations only (no findings are read here, so no paths). */
-function observe(plan: Plan, state: SimState): Evaluation {
-  return evaluate(plan, state, { paths: false });
+/**
+ * What the sets, lines and stations do in a state: the observations of evaluate(plan, state), without its findings
+ * and wiring symptoms (no check reads them; symptoms only add notes and noise).
+ */
+function observe(plan: Plan, state: SimState): Pick<Evaluation, 'lines' | 'sets' | 'stations'> {
+  const nl = getNetlist(plan);
+  const { mech, facts } = computeNets(plan, state);
+  const lineStates = lineStatesOf(nl, state);
+  const lines = observeLines(nl, facts, lineStates);
+  const { sets, buzzerOn } = observeSets(nl, state, mech, facts, lineStates, lines);
+  return { lines, sets, stations: observeStations(nl, state, buzzerOn) };
 }
 
 function run(plan: Plan, actions: SimAction[], from: SimState = initialState(plan)): SimState {

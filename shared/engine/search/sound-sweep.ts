@@ -13,20 +13,36 @@ export const SOUND_STATE_LIMIT = 4_000_000;
 /** Interchangeable sets are grouped at most this many at a time (their permutations are listed). */
 const MAX_GROUP = 6;
 
-const partsCache = new WeakMap<Plan, Map<number, Set<number>>>();
+interface NetsOfParts {
+  /** Per static net (root terminal): the parts with a terminal on it. */
+  partsOn: Map<number, Set<number>>;
+  /** Per part (index): its lead edges as [edge index, static net of the cord pin], in edge order. */
+  leadsOf: Map<number, [number, number][]>;
+}
 
-/** Per static net (root terminal): the parts with a terminal on it. */
-function partsOnNets(plan: Plan): Map<number, Set<number>> {
+const partsCache = new WeakMap<Plan, NetsOfParts>();
+
+/** Where each part's terminals and leads land, in one pass over the netlist. */
+function netsOfParts(plan: Plan): NetsOfParts {
   let out = partsCache.get(plan);
   if (!out) {
     const nl = getNetlist(plan);
-    out = new Map();
+    const partsOn = new Map<number, Set<number>>();
     nl.terminals.forEach((t, i) => {
       const root = nl.staticRoot[i];
-      let parts = out!.get(root);
-      if (!parts) out!.set(root, (parts = new Set()));
+      let parts = partsOn.get(root);
+      if (!parts) partsOn.set(root, (parts = new Set()));
       parts.add(t.part);
     });
+    const leadsOf = new Map<number, [number, number][]>();
+    nl.edges.forEach((e, i) => {
+      if (e.kind !== 'lead') return;
+      const owner = nl.terminals[e.a].part;
+      let list = leadsOf.get(owner);
+      if (!list) leadsOf.set(owner, (list = []));
+      list.push([i, nl.staticRoot[e.b]]);
+    });
+    out = { partsOn, leadsOf };
     partsCache.set(plan, out);
   }
   return out;
@@ -41,14 +57,15 @@ function partSignature(plan: Plan, setIndex: number): string | null {
   // Where every lead of the set and its add-ons lands: the static net of the cord pin it is wired to.
   const parts = [info.part, ...addOns.map((a) => nl.partById.get(a.id)?.index ?? -1)];
   if (parts.includes(-1)) return null;
+  const { partsOn, leadsOf } = netsOfParts(plan);
+  // The lead edges of these parts in edge order, each as (which of the parts, net).
+  const leads: [number, number, number][] = [];
+  parts.forEach((part, k) => {
+    for (const [edge, root] of leadsOf.get(part) ?? []) leads.push([edge, k, root]);
+  });
+  if (parts.length > 1) leads.sort((x, y) => x[0] - y[0]);
   const landing: number[] = [];
-  const partsOn = partsOnNets(plan);
-  for (const e of nl.edges) {
-    if (e.kind !== 'lead') continue;
-    const owner = nl.terminals[e.a].part;
-    const k = parts.indexOf(owner);
-    if (k < 0) continue;
-    const root = nl.staticRoot[e.b];
+  for (const [, k, root] of leads) {
     // A pin whose net reaches no other part is the set's own: it cannot be traded with another set's.
     if ((partsOn.get(root)?.size ?? 0) < 2) return null;
     landing.push(k, root);
@@ -128,10 +145,10 @@ export function planSoundSweep(plan: Plan, opts: Pick<SweepOptions, 'events'> = 
     };
   }
 
-  const forEach = (visit: (combo: number[]) => boolean): void => {
+  const forEach = (visit: (combo: readonly number[]) => boolean): void => {
     const combo = new Array<number>(n).fill(0);
     const fill = (i: number): boolean => {
-      if (i === n) return visit(combo.slice());
+      if (i === n) return visit(combo);
       const from = previous[i] >= 0 ? combo[previous[i]] : 0;
       for (let m = from; m < moves[i].length; m++) {
         combo[i] = m;

@@ -178,8 +178,9 @@ export function sweepEvents(plan: Plan, mode: 'single' | 'product' = 'single'): 
 }
 
 /**
- * Mechanical combinations (one move index per set) in increasing total size, each handed to `visit` (a new array
- * each time); visiting ends early when it returns false. maxActive limits how many sets may leave idle (the reduced
+ * Mechanical combinations (one move index per set) in increasing total size, each handed to `visit` (one array,
+ * changed after the call returns: a visitor that keeps a combination copies it); visiting ends early when it
+ * returns false. maxActive limits how many sets may leave idle (the reduced
  * strategy); groups, when given, say which sets may be active together (sets on the same KSU station port).
  * Recursion with a callback rather than nested generators: with 40 sets every combination would otherwise pass
  * through 40 delegating generators.
@@ -188,7 +189,7 @@ function forEachCombination(
   moves: SetMove[][],
   maxActive: number,
   sameGroup: (i: number, j: number) => boolean,
-  visit: (combo: number[]) => boolean,
+  visit: (combo: readonly number[]) => boolean,
 ): void {
   const n = moves.length;
   const sizes = moves.map((ms) => ms.map(moveSize));
@@ -197,14 +198,21 @@ function forEachCombination(
   const combo = new Array<number>(n).fill(0);
   // Largest size the sets from i on can still add, for pruning.
   const rest = new Array<number>(n + 1).fill(0);
-  for (let i = n - 1; i >= 0; i--) rest[i] = rest[i + 1] + Math.max(...sizes[i]);
+  // Largest size one set from i on can add: the sets still allowed to leave idle add at most that much each.
+  const largest = new Array<number>(n + 1).fill(0);
+  for (let i = n - 1; i >= 0; i--) {
+    const most = Math.max(...sizes[i]);
+    rest[i] = rest[i + 1] + most;
+    largest[i] = Math.max(largest[i + 1], most);
+  }
   const active: number[] = [];
 
   function fill(i: number, budget: number): boolean {
-    if (budget === 0) return visit(combo.slice());
-    if (i === n || budget > rest[i]) return true;
+    if (budget === 0) return visit(combo);
+    // Pruned: no combination from here spends the budget (the walk would otherwise go on set by set).
+    if (i === n || budget > rest[i] || budget > (maxActive - active.length) * largest[i]) return true;
     if (!fill(i + 1, budget)) return false;
-    if (active.length >= maxActive || active.some((j) => !sameGroup(i, j))) return true;
+    if (active.some((j) => !sameGroup(i, j))) return true;
     for (let m = 1; m < moves[i].length; m++) {
       const s = sizes[i][m];
       if (s > budget) continue;
@@ -272,11 +280,13 @@ export function stationPortOfSets(plan: Plan): number[] {
 }
 
 const NONE: readonly Finding[] = [];
+/** In the sweep's table of wiring findings' keys: this one is kept at size 0 already. */
+const SETTLED = '';
 
 export interface Planned {
   strategy: SweepStrategy;
-  /** Visits the combinations instead of forEachCombination (the sound sweep's multisets). */
-  forEach?: (visit: (combo: number[]) => boolean) => void;
+  /** Visits the combinations instead of forEachCombination (the sound sweep's multisets), as it does. */
+  forEach?: (visit: (combo: readonly number[]) => boolean) => void;
   /**
    * Every combination equivalent to a visited one (the visited one first) with the permutation of set indices
    * that maps it there: perm[i] is where set i goes.
@@ -380,7 +390,7 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
   const idle = evaluate(plan, start, { paths: false }).findings;
   const again = new Set(evaluate(plan, start, { paths: false }).findings);
   const knownKeys = new Map(idle.filter((f) => again.has(f)).map((f) => [f, findingKey(f)]));
-  const comboActions = (combo: number[]): SimAction[] =>
+  const comboActions = (combo: readonly number[]): SimAction[] =>
     combo.flatMap((m, i) => (m === 0 ? [] : moveActions(setIds[i], moves[i][m])));
 
   // Each set's position as a SetState, shared by every combination (the evaluation only reads them).
@@ -390,19 +400,33 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
   // One mechanical state buffer for the whole sweep: a combination's nets are dropped before the next one's.
   const mechBuffer = opts.exact ? null : createMechFor(plan);
 
-  const visitCombination = (combo: number[]): boolean => {
+  // One SetState record for every combination, changed in place (the evaluation only reads it and keeps nothing
+  // of it), and each opening's state around it, so that a visited state allocates nothing here.
+  const sets: SimState['sets'] = {};
+  const shown = new Array<number>(setIds.length).fill(0);
+  setIds.forEach((id, i) => (sets[id] = moveStates[i][0]));
+  const netsState: SimState = { ...start, sets };
+  const openingStates = openings.map((o) => ({ ...o.state, sets }));
+  const sizeOf = moves.map((ms) => ms.map(moveSize));
+
+  const visitCombination = (combo: readonly number[]): boolean => {
     let comboSize = 0;
     let active = 0;
-    const sets: SimState['sets'] = {};
     for (let i = 0; i < combo.length; i++) {
-      sets[setIds[i]] = moveStates[i][combo[i]];
-      comboSize += moveSize(moves[i][combo[i]]);
-      if (combo[i] !== 0) active++;
+      const m = combo[i];
+      if (shown[i] !== m) {
+        sets[setIds[i]] = moveStates[i][m];
+        shown[i] = m;
+      }
+      comboSize += sizeOf[i][m];
+      if (m !== 0) active++;
     }
+    // The combination as kept in best: copied once, when a finding first keeps it.
+    let kept: number[] | null = null;
     // Reduced strategy: two sets together are visited without KSU events (see README).
     const openingCount = planned.strategy === 'reduced' && active > 1 ? 1 : openings.length;
     // The sets' positions fix every contact, so the nets are solved once for all events.
-    const nets = mechBuffer ? computeNetsInto(plan, { ...start, sets }, mechBuffer) : null;
+    const nets = mechBuffer ? computeNetsInto(plan, netsState, mechBuffer) : null;
     const actions = opts.exact ? comboActions(combo) : null;
     for (let o = 0; o < openingCount; o++) {
       if (visited >= limit || (visited % 64 === 0 && opts.shouldStop?.())) {
@@ -417,18 +441,25 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
       // opening has; the others are asked only for what their event adds (eventFindings).
       const found = nets
         ? o === 0 || !idleFirst
-          ? evaluateFindings(plan, { ...opening.state, sets }, nets)
+          ? evaluateFindings(plan, openingStates[o], nets)
           : opening.mayAdd
-            ? eventFindings(plan, { ...opening.state, sets }, nets)
+            ? eventFindings(plan, openingStates[o], nets)
             : NONE
         : evaluate(plan, applyActions(plan, opening.state, actions!), { paths: false }).findings;
       visited++;
       const size = opening.size + comboSize;
       for (let k = 0; k < found.length; k++) {
-        const key = knownKeys.get(found[k]) ?? findingKey(found[k]);
+        const f = found[k];
+        const knownKey = knownKeys.get(f);
+        // A wiring finding kept at size 0 stays there: no state is smaller.
+        if (knownKey === SETTLED) continue;
+        const key = knownKey ?? findingKey(f);
         const known = best.get(key);
-        if (known === undefined || known.size > size)
-          best.set(key, { finding: found[k], size, opening: o, combo });
+        if (known === undefined || known.size > size) {
+          kept ??= combo.slice();
+          best.set(key, { finding: f, size, opening: o, combo: kept });
+          if (size === 0 && knownKey !== undefined) knownKeys.set(f, SETTLED);
+        }
       }
       if (visited % 256 === 0) opts.onProgress?.(visited, total);
     }
