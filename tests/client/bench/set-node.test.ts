@@ -80,4 +80,24 @@ describe('SetNode', () => {
     expect(renders).toBeGreaterThan(0);
     expect(wrapper.get('[data-testid="lamp-back-2"]').text()).toBe('steady');
   });
+
+  it('does not re-render when the selection moves between other parts', async () => {
+    const store = benchWith();
+    let renders = 0;
+    const countRenders: ComponentOptions = {
+      updated() {
+        renders++;
+      },
+    };
+    const wrapper = mountNode(SetNode, 'back', 'set', { width: 240, height: 200 }, [countRenders]);
+    // A key pressed on a set selects that set: the other nodes on the drawing stay as they are.
+    store.select('front');
+    await wrapper.vm.$nextTick();
+    store.select('bridge');
+    await wrapper.vm.$nextTick();
+    expect(renders).toBe(0);
+    store.select('back');
+    await wrapper.vm.$nextTick();
+    expect(wrapper.get('[data-testid="node-back"]').classes()).toContain('lb-node--selected');
+  });
 });
