@@ -1,12 +1,12 @@
 /**
- * What the canvas reads off an evaluation, keyed by part. Every evaluation is a new object, so without this each
- * node would find its own observation in the whole list and re-render on every key press. Entries deep-equal to the
- * previous evaluation's keep the previous object: a node whose observation did not change sees the same object
- * and does not re-render.
+ * What the drawing and the panels read off an evaluation. Every evaluation is a new object, so without this each
+ * node would find its own observation in the whole list and every reader would re-render on every key press.
+ * Whatever is deep-equal to the previous evaluation's keeps the previous object: a node whose observation did not
+ * change, or a Findings list that reads the same, sees the same object and does not re-render.
  */
 import { computed, type ComputedRef } from 'vue';
 import equal from 'fast-deep-equal';
-import type { Evaluation, SetObservation } from '@shared/engine';
+import type { Evaluation, Finding, SetObservation } from '@shared/engine';
 
 export function keyedKeepingEqual<T>(
   items: readonly T[],
@@ -29,4 +29,12 @@ export function keptSetObservations(
   return computed((previous?: ReadonlyMap<string, SetObservation>) =>
     keyedKeepingEqual(evaluation()?.sets ?? [], (s) => s.set, previous),
   );
+}
+
+/** The findings, the same array while they read the same: most key presses change no finding. */
+export function keptFindings(evaluation: () => Evaluation | null): ComputedRef<Finding[]> {
+  return computed((previous?: Finding[]) => {
+    const next = evaluation()?.findings ?? [];
+    return previous !== undefined && equal(previous, next) ? previous : next;
+  });
 }

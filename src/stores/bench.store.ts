@@ -26,7 +26,7 @@ import { highlightOf, keptSelection } from '@/bench/bench-selection';
 import { refusalOf, type EditResult } from '@/bench/edit-refusal';
 import { editCommands } from '@/bench/edit-commands';
 import { useSessionStore } from './session.store';
-import { keptSetObservations } from './bench-views';
+import { keptFindings, keptSetObservations } from './bench-views';
 
 export type { HistoryEntry, EditResult };
 
@@ -77,7 +77,7 @@ export const useBenchStore = defineStore('bench', () => {
   const issues = computed(() => (plan.value ? crossReferenceIssues(plan.value) : []));
   const evaluation = computed(() => evaluationResult.value.evaluation);
   const evaluationError = computed(() => evaluationResult.value.error);
-  const findings = computed<Finding[]>(() => evaluation.value?.findings ?? []);
+  const findings = keptFindings(() => evaluation.value);
   const setObservations = keptSetObservations(() => evaluation.value);
 
   const selectedFinding = computed<Finding | null>(

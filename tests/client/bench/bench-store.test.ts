@@ -107,15 +107,17 @@ describe('bench store evaluation', () => {
     expect(store.plan).toBe(plan);
   });
 
-  it("keeps a set's observation object while it does not change, and replaces it when it does", () => {
+  it("keeps a set's observation and the findings while they do not change, and replaces what does", () => {
     const store = benchWith();
     const back = store.setObservations.get('back');
     const front = store.setObservations.get('front');
+    const findings = store.findings;
     // A line key latched on the front set while on hook seizes nothing the back set sees (common practice,
     // no published source).
     store.operate({ kind: 'press-key', set: 'front', key: 2 });
     expect(store.setObservations.get('back')).toBe(back);
     expect(store.setObservations.get('front')).not.toBe(front);
     expect(store.setObservations.get('front')?.pressedKey).toBe(2);
+    expect(store.findings).toBe(findings);
   });
 });
