@@ -5,7 +5,7 @@
  * refusal looks. A plan opened to view (shared with the user, an old revision) is read-only: the sets still
  * operate and the engine still sweeps and cures, but every edit is refused with the reason.
  */
-import { computed, ref, shallowRef, watch } from 'vue';
+import { computed, ref, shallowRef, toRaw, watch } from 'vue';
 import { defineStore } from 'pinia';
 import {
   findingKey,
@@ -26,6 +26,7 @@ import { highlightOf, keptSelection } from '@/bench/bench-selection';
 import { refusalOf, type EditResult } from '@/bench/edit-refusal';
 import { editCommands } from '@/bench/edit-commands';
 import { useSessionStore } from './session.store';
+import { keptFindings, keptSetObservations } from './bench-views';
 
 export type { HistoryEntry, EditResult };
 
@@ -76,7 +77,8 @@ export const useBenchStore = defineStore('bench', () => {
   const issues = computed(() => (plan.value ? crossReferenceIssues(plan.value) : []));
   const evaluation = computed(() => evaluationResult.value.evaluation);
   const evaluationError = computed(() => evaluationResult.value.error);
-  const findings = computed<Finding[]>(() => evaluation.value?.findings ?? []);
+  const findings = keptFindings(() => evaluation.value);
+  const setObservations = keptSetObservations(() => evaluation.value);
 
   const selectedFinding = computed<Finding | null>(
     () => findings.value.find((f) => findingKey(f) === selectedFindingKey.value) ?? null,
@@ -86,8 +88,8 @@ export const useBenchStore = defineStore('bench', () => {
   const highlight = computed(() => highlightOf(selectedFinding.value));
 
   const selectedSet = computed(() => plan.value?.sets.find((s) => s.id === selectedPartId.value) ?? null);
-  const selectedSetObservation = computed(
-    () => evaluation.value?.sets.find((s) => s.set === selectedSet.value?.id) ?? null,
+  const selectedSetObservation = computed(() =>
+    selectedSet.value ? (setObservations.value.get(selectedSet.value.id) ?? null) : null,
   );
 
   const readOnly = computed(() => readOnlyReason.value !== null);
@@ -117,14 +119,14 @@ export const useBenchStore = defineStore('bench', () => {
   ) {
     openKey.value = key;
     planId.value = id;
-    plan.value = document;
+    plan.value = document ? toRaw(document) : null; // not a query's deep read-only proxy: evaluations walk it
     baseUpdatedAt.value = updatedAt;
     readOnlyReason.value = reason;
     past.value = [];
     future.value = [];
     revision.value = 0;
     savedRevision.value = 0;
-    sim.value = document ? initialState(document) : null;
+    sim.value = plan.value ? initialState(plan.value) : null;
     selectedPartId.value = null;
     selectedFindingKey.value = null;
   }
@@ -210,7 +212,7 @@ export const useBenchStore = defineStore('bench', () => {
   }
 
   function setSimState(state: SimState) {
-    sim.value = state;
+    sim.value = toRaw(state);
   }
 
   function resetSim() {
@@ -271,6 +273,7 @@ export const useBenchStore = defineStore('bench', () => {
     evaluationError,
     issues,
     findings,
+    setObservations,
     selectedFinding,
     highlight,
     selectedSet,

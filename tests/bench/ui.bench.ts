@@ -6,7 +6,9 @@
  *   the page requested until the network fell quiet, and their ratio to the bare page's;
  * - key press → frame time on a 40-set plan: a line key is pressed on a set, and the time is taken until the
  *   frame is ready to paint (handler, store, engine, Vue patch, style and layout). The time until the next
- *   painted frame is printed beside it; it also holds the wait for the display's next refresh.
+ *   painted frame is printed beside it; it also holds the wait for the display's next refresh. Fitted in view,
+ *   40 sets are drawn at names only (no keys), so the drawing is first zoomed in with its own Zoom in button
+ *   until the sets draw their keys, as a user would to operate them.
  *
  * Targets: landing ≤ 1.3× the bare page, Bench ≤ 3×, key press p95 ≤ 16.7 ms (one frame at 60 Hz).
  */
@@ -124,6 +126,18 @@ async function pressTimes(page: Page, presses: number): Promise<{ ready: number[
   return page.evaluate(script) as Promise<{ ready: number[]; painted: number[] }>;
 }
 
+/** Zooms the drawing in, one press of its Zoom in button at a time, until the sets draw their line keys. */
+async function zoomUntilKeysDrawn(page: Page): Promise<number> {
+  const lineKeys = page.locator('button[data-testid^="key-"][aria-pressed]');
+  const zoomIn = page.getByRole('button', { name: 'Zoom in' });
+  for (let presses = 0; presses <= 20; presses++) {
+    if ((await lineKeys.count()) > 0) return presses;
+    await zoomIn.click();
+    await page.waitForTimeout(200);
+  }
+  throw new Error('The sets drew no line keys after 20 presses of Zoom in');
+}
+
 const kB = (bytes: number) => `${(bytes / 1000).toFixed(1)} kB`;
 const pct = (xs: number[], p: number) => {
   const s = [...xs].sort((a, b) => a - b);
@@ -173,8 +187,8 @@ async function main() {
     const lineKeys = page.locator('button[data-testid^="key-"][aria-pressed]');
     const bench = await transferOf(page, `${baseUrl}/plans/${id}`, async () => {
       await page.locator('[data-testid^="node-"]').first().waitFor({ timeout: 60_000 });
-      await lineKeys.first().waitFor();
     });
+    const zooms = await zoomUntilKeysDrawn(page);
     const keyCount = await lineKeys.count();
     // Warm up (first evaluations compile the engine's paths), then measure.
     await pressTimes(page, 20);
@@ -211,7 +225,7 @@ async function main() {
       );
     }
     console.log(
-      `\nKey press → frame ready, ${plan.sets.length}-set plan, ${keyCount} line keys, ${times.ready.length} presses`,
+      `\nKey press → frame ready, ${plan.sets.length}-set plan, ${keyCount} line keys (after ${zooms} presses of Zoom in), ${times.ready.length} presses`,
     );
     console.log(
       `  p50 ${press.p50.toFixed(1)} ms, p95 ${press.p95.toFixed(1)} ms (target p95 ≤ ${TARGETS.pressP95} ms) ${press.p95 <= TARGETS.pressP95 ? 'PASS' : 'MISS'}`,

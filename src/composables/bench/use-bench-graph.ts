@@ -12,6 +12,7 @@ import { PART_DRAG_TYPE, type PartRequest } from '@/components/bench/parts-tray'
 import { placePart, type Point, type Rect, type Size } from '@/bench/placement';
 import { spliceAddOn } from '@/bench/plan-edits';
 import { DEFAULT_PART_SIZE } from '@/bench/tidy-layout';
+import { tierOf } from '@/components/bench/canvas-view';
 import { FLOW_ID, tidyRoutes } from './use-tidy';
 
 export { FLOW_ID };
@@ -34,6 +35,14 @@ export interface CableEdgeData {
   pairs: string[];
   /** The route Tidy gave this cable, plug end first, while its parts stay where Tidy put them. */
   route?: Point[];
+}
+
+/** Resolves after `count` frames: long enough for a re-render, its layout and vue-flow's size measuring. */
+function nextFrames(count: number): Promise<void> {
+  return new Promise((resolve) => {
+    const step = (left: number) => (left ? requestAnimationFrame(() => step(left - 1)) : resolve());
+    step(count);
+  });
 }
 
 export type DropOutcome =
@@ -227,9 +236,21 @@ export function useBenchGraph() {
     return { kind: 'spliced', id };
   }
 
-  /** Fit the drawing, but never blow a small drawing (a lone KSU) up past life size. */
-  function fit(duration = 200) {
-    void flow.fitView({ padding: 0.15, maxZoom: 1, duration });
+  /**
+   * Fit the drawing, but never blow a small drawing (a lone KSU) up past life size. Parts draw more or less at each
+   * zoom tier, so a fit that crosses a tier fits again once the parts have been measured at the new zoom, never
+   * closer than before: a fit that would flip between two tiers settles on the lower zoom, where everything shows.
+   */
+  async function fit(duration = 200) {
+    let maxZoom = 1;
+    for (let round = 0; round < 3; round++) {
+      const tier = tierOf(flow.viewport.value.zoom);
+      await flow.fitView({ padding: 0.15, maxZoom, duration: round ? 0 : duration });
+      const zoom = flow.viewport.value.zoom;
+      if (tierOf(zoom) === tier) return;
+      maxZoom = Math.min(maxZoom, zoom);
+      await nextFrames(2);
+    }
   }
 
   return {

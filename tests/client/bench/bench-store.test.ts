@@ -1,5 +1,6 @@
+import { isProxy, reactive, readonly } from 'vue';
 import { describe, expect, it } from 'vitest';
-import { benchWith } from './bench-fixture';
+import { benchWith, twoSetPlan } from './bench-fixture';
 
 describe('bench store history', () => {
   it('undoes and redoes each edit in order, with its label', () => {
@@ -94,5 +95,29 @@ describe('bench store history', () => {
     expect(store.evaluation?.sets.find((s) => s.set === 'front')?.offHook).toBe(true);
     store.addSet('six-key', { x: 0, y: 600 });
     expect(store.evaluation?.sets.find((s) => s.set === 'front')?.offHook).toBe(false);
+  });
+});
+
+describe('bench store evaluation', () => {
+  it('keeps a document handed over as reactive state bare, so evaluations do not walk proxies', () => {
+    const plan = twoSetPlan();
+    // A query's cached answer reaches the page as a deep read-only proxy.
+    const store = benchWith(readonly(reactive(plan)) as typeof plan);
+    expect(isProxy(store.plan)).toBe(false);
+    expect(store.plan).toBe(plan);
+  });
+
+  it("keeps a set's observation and the findings while they do not change, and replaces what does", () => {
+    const store = benchWith();
+    const back = store.setObservations.get('back');
+    const front = store.setObservations.get('front');
+    const findings = store.findings;
+    // A line key latched on the front set while on hook seizes nothing the back set sees (common practice,
+    // no published source).
+    store.operate({ kind: 'press-key', set: 'front', key: 2 });
+    expect(store.setObservations.get('back')).toBe(back);
+    expect(store.setObservations.get('front')).not.toBe(front);
+    expect(store.setObservations.get('front')?.pressedKey).toBe(2);
+    expect(store.findings).toBe(findings);
   });
 });

@@ -7,6 +7,17 @@ function mountSet(partId = 'front') {
   return mountNode(SetNode, partId, 'set', { width: 240, height: 200 });
 }
 
+/** The back set's node, counting every component of it that patches again (frame, lamps, handset switch). */
+function mountCountingBack() {
+  const seen = { renders: 0 };
+  const countRenders: ComponentOptions = {
+    updated() {
+      seen.renders++;
+    },
+  };
+  return { seen, wrapper: mountNode(SetNode, 'back', 'set', { width: 240, height: 200 }, [countRenders]) };
+}
+
 describe('SetNode', () => {
   it('renders one key per template key, each with a lamp word', () => {
     benchWith();
@@ -59,25 +70,32 @@ describe('SetNode', () => {
 
   it('does not re-render when only other sets change', async () => {
     const store = benchWith();
-    // Every component of the node that patches again (frame, lamps, handset switch) counts.
-    let renders = 0;
-    const countRenders: ComponentOptions = {
-      updated() {
-        renders++;
-      },
-    };
-    const wrapper = mountNode(SetNode, 'back', 'set', { width: 240, height: 200 }, [countRenders]);
+    const { seen, wrapper } = mountCountingBack();
     const evaluation = store.evaluation;
     // A line key latched on another set that stays on hook seizes nothing: the back set sees no change
     // (common practice, no published source), though the store holds a new evaluation.
     store.operate({ kind: 'press-key', set: 'front', key: 2 });
     await wrapper.vm.$nextTick();
     expect(store.evaluation).not.toBe(evaluation);
-    expect(renders).toBe(0);
+    expect(seen.renders).toBe(0);
     // Lifting on that line lights its lamp on the back set too: then it renders.
     store.operate({ kind: 'lift-handset', set: 'front' });
     await wrapper.vm.$nextTick();
-    expect(renders).toBeGreaterThan(0);
+    expect(seen.renders).toBeGreaterThan(0);
     expect(wrapper.get('[data-testid="lamp-back-2"]').text()).toBe('steady');
+  });
+
+  it('does not re-render when the selection moves between other parts', async () => {
+    const store = benchWith();
+    const { seen, wrapper } = mountCountingBack();
+    // A key pressed on a set selects that set: the other nodes on the drawing stay as they are.
+    store.select('front');
+    await wrapper.vm.$nextTick();
+    store.select('bridge');
+    await wrapper.vm.$nextTick();
+    expect(seen.renders).toBe(0);
+    store.select('back');
+    await wrapper.vm.$nextTick();
+    expect(wrapper.get('[data-testid="node-back"]').classes()).toContain('lb-node--selected');
   });
 });
