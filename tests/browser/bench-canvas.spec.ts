@@ -5,7 +5,7 @@
  */
 import type { Page } from 'playwright-core';
 import { afterEach, describe, expect, inject, it } from 'vitest';
-import { openBrowser, screenshot, signUpToPlans, type BrowserSession } from '../support/browser';
+import { openDemoBench, screenshot, type BrowserSession } from '../support/browser';
 
 const baseUrl = inject('baseUrl');
 const chromiumPath = inject('chromiumPath');
@@ -28,12 +28,8 @@ afterEach(async () => {
 
 /** The demo plan on the Bench, once the opening fit has stopped moving the drawing. */
 async function benchOf(viewport: { width: number; height: number }, scheme: 'light' | 'dark' = 'light') {
-  session = await openBrowser(chromiumPath, viewport, scheme);
+  session = await openDemoBench(chromiumPath, baseUrl, 'canvas', viewport, scheme);
   const { page } = session;
-  await signUpToPlans(page, baseUrl, 'canvas');
-  await page.getByTestId('plan-row').getByRole('link').first().click();
-  await page.waitForURL(/\/plans\/[^/]+$/);
-  await page.locator('[data-testid^="node-"]').first().waitFor();
   await viewSettled(page);
   return page;
 }

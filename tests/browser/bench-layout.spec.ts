@@ -6,10 +6,9 @@
 import type { Page } from 'playwright-core';
 import { afterEach, describe, expect, inject, it } from 'vitest';
 import {
-  openBrowser,
+  openDemoBench,
   screenshot,
   seriousViolations,
-  signUpToPlans,
   type BrowserSession,
 } from '../support/browser';
 
@@ -28,12 +27,8 @@ afterEach(async () => {
 });
 
 async function openDemo(viewport: { width: number; height: number }, scheme: 'light' | 'dark' = 'light') {
-  session = await openBrowser(chromiumPath, viewport, scheme);
+  session = await openDemoBench(chromiumPath, baseUrl, 'layout', viewport, scheme);
   const { page } = session;
-  await signUpToPlans(page, baseUrl, 'layout');
-  await page.getByTestId('plan-row').getByRole('link').first().click();
-  await page.waitForURL(/\/plans\/[^/]+$/);
-  await page.locator('[data-testid^="node-"]').first().waitFor();
   await settledZoom(page);
   return page;
 }

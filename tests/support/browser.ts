@@ -189,3 +189,20 @@ export async function expectPickUpLightsLine(page: Page, set: string, line: numb
   await page.getByTestId(`handset-${set}`).click();
   await expect.poll(() => lamp.getAttribute('data-cadence'), { timeout: 10_000 }).toBe('steady');
 }
+
+/** A new restorer account's demo plan open on the Bench, its drawing's parts drawn (the view may still be fitting). */
+export async function openDemoBench(
+  executablePath: string,
+  baseUrl: string,
+  prefix: string,
+  viewport?: { width: number; height: number },
+  colorScheme: 'light' | 'dark' = 'light',
+): Promise<BrowserSession> {
+  const session = await openBrowser(executablePath, viewport, colorScheme);
+  const { page } = session;
+  await signUpToPlans(page, baseUrl, prefix);
+  await page.getByTestId('plan-row').getByRole('link').first().click();
+  await page.waitForURL(/\/plans\/[^/]+$/);
+  await page.locator('[data-testid^="node-"]').first().waitFor();
+  return session;
+}
