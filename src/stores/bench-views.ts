@@ -6,7 +6,20 @@
  */
 import { computed, type ComputedRef } from 'vue';
 import equal from 'fast-deep-equal';
-import type { Evaluation, Finding, SetObservation } from '@shared/engine';
+import { evaluate, type Evaluation, type Finding, type Plan, type SetObservation, type SimState } from '@shared/engine';
+
+/** The engine's evaluation of what is open, or the reason it could not evaluate (shown, never thrown at a render). */
+export function evaluationOf(
+  plan: Plan | null,
+  state: SimState | null,
+): { evaluation: Evaluation | null; error: string | null } {
+  if (!plan || !state) return { evaluation: null, error: null };
+  try {
+    return { evaluation: evaluate(plan, state), error: null };
+  } catch (err) {
+    return { evaluation: null, error: err instanceof Error ? err.message : String(err) };
+  }
+}
 
 export function keyedKeepingEqual<T>(
   items: readonly T[],

@@ -10,10 +10,8 @@ import { defineStore } from 'pinia';
 import {
   findingKey,
   applyAction,
-  evaluate,
   initialState,
   crossReferenceIssues,
-  type Evaluation,
   type Finding,
   type Plan,
   type SimAction,
@@ -26,7 +24,7 @@ import { highlightOf, keptSelection } from '@/bench/bench-selection';
 import { refusalOf, type EditResult } from '@/bench/edit-refusal';
 import { editCommands } from '@/bench/edit-commands';
 import { useSessionStore } from './session.store';
-import { keptFindings, keptSetObservations } from './bench-views';
+import { evaluationOf, keptFindings, keptSetObservations } from './bench-views';
 
 export type { HistoryEntry, EditResult };
 
@@ -62,14 +60,7 @@ export const useBenchStore = defineStore('bench', () => {
   const selectedPartId = ref<string | null>(null);
   const selectedFindingKey = ref<string | null>(null);
 
-  const evaluationResult = computed<{ evaluation: Evaluation | null; error: string | null }>(() => {
-    if (!plan.value || !sim.value) return { evaluation: null, error: null };
-    try {
-      return { evaluation: evaluate(plan.value, sim.value), error: null };
-    } catch (err) {
-      return { evaluation: null, error: err instanceof Error ? err.message : String(err) };
-    }
-  });
+  const evaluationResult = computed(() => evaluationOf(plan.value, sim.value));
   /**
    * What the engine's cross-reference checks say about the drawing (the server refuses such documents).
    * Edits build documents field by field from valid ones, so only the cross-references need checking here.
