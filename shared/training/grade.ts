@@ -22,6 +22,7 @@ import {
 } from './faults';
 import type { Diagnosis, PlantedFault, PuzzleSpec, RepairStep } from './puzzle.schema';
 import { differingProbes, probeState, probes, type Probe } from './sightings';
+import equal from 'fast-deep-equal';
 
 export interface RepairAssessment {
   /** Per planted fault, in order: are its own symptoms gone? */
@@ -80,24 +81,11 @@ export interface PuzzleCheck {
   symptoms: string[];
 }
 
-/** Canonical JSON (keys sorted at every level), so two steps written with their fields in another order still match. */
-function canonical(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`;
-  if (value && typeof value === 'object')
-    return `{${Object.keys(value)
-      .sort()
-      .map((k) => `${JSON.stringify(k)}:${canonical((value as Record<string, unknown>)[k])}`)
-      .join(',')}}`;
-  return JSON.stringify(value);
-}
-
-/** The index of the first repair step that repeats an earlier one, or null. A repeated step is a slip in the data. */
+/** The index of the first repair step that a later one repeats, or null. A repeated step is a slip in the data. */
 function repeatedStep(repair: readonly unknown[]): number | null {
-  const seen = new Set<string>();
-  for (const step of repair) {
-    const key = canonical(step);
-    if (seen.has(key)) return repair.findIndex((s) => canonical(s) === key);
-    seen.add(key);
+  for (const [i, step] of repair.entries()) {
+    const first = repair.findIndex((earlier) => equal(earlier, step));
+    if (first < i) return first;
   }
   return null;
 }
