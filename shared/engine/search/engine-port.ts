@@ -19,6 +19,7 @@ export {
   evaluate,
   evaluateWithNets,
   evaluateFindings,
+  evaluateFindingsOf,
   eventFindings,
   eventMayAddFindings,
   computeNets,

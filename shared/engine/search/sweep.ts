@@ -9,11 +9,13 @@ import {
   createMechFor,
   evaluate,
   evaluateFindings,
+  evaluateFindingsOf,
   eventFindings,
   eventMayAddFindings,
   getTemplate,
   initialState,
   type Finding,
+  type FindingCode,
   type Plan,
   type SimAction,
   type SimState,
@@ -519,8 +521,16 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
     return applyActions(plan, state, moveActions(setIds[last], moves[last][combo[last]]));
   };
 
-  // The kept states, reached by their actions, evaluated once more in full for paths and sentences. The opening's
-  // state is its actions applied to the start already; findings that share a state share its evaluation.
+  // The kept states, reached by their actions, evaluated once more for their findings with paths and sentences
+  // (observations are not needed): once per distinct state, and only the rules of the codes kept there. The
+  // opening's state is its actions applied to the start already; findings that share a state share its evaluation.
+  const keptCodes = new Map<string, Set<FindingCode>>();
+  for (const entry of best.values()) {
+    const stateKey = `${entry.opening}|${entry.combo.join(',')}`;
+    let codes = keptCodes.get(stateKey);
+    if (!codes) keptCodes.set(stateKey, (codes = new Set()));
+    codes.add(entry.finding.code);
+  }
   const kept: { swept: SweptFinding; key: string }[] = [];
   const evaluated = new Map<string, Map<string, Finding>>();
   for (const [key, entry] of best) {
@@ -531,7 +541,7 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
     let byKey = evaluated.get(stateKey);
     if (!byKey) {
       byKey = new Map();
-      for (const f of evaluate(plan, state).findings) {
+      for (const f of evaluateFindingsOf(plan, state, keptCodes.get(stateKey)!)) {
         const k = findingKey(f);
         if (!byKey.has(k)) byKey.set(k, f);
       }
