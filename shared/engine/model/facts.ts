@@ -22,12 +22,11 @@ export interface NetFacts {
   roots: Int32Array;
 }
 
-const ascending = (a: number, b: number) => a - b;
-
 /**
  * Once per netlist: the speech networks among its elements (in element order: dense ids of their ends and their
- * owner), the dense ids of each line's leads, and a scratch table from a net's root to the lines whose tip is on
- * it (all -1 between calls), so that matching networks to lines costs one look-up per network end.
+ * owner), the dense ids of each line's leads, and scratch tables (cleared again by each call): from a net's root
+ * to the lines whose tip is on it, so that matching networks to lines costs one look-up per network end, and of
+ * which set hears which line, read out in ascending order (no sorting).
  */
 interface FactsLayout {
   a: Int32Array;
@@ -40,6 +39,9 @@ interface FactsLayout {
   /** Per dense root: the first line (index) whose tip net it is, or -1; nextTip chains the others. */
   firstTip: Int32Array;
   nextTip: Int32Array;
+  /** heard[set × lines + line]: the set's network is across the line; heardAny[set]: across some line. */
+  heard: Uint8Array;
+  heardAny: Uint8Array;
 }
 
 const layoutOf = perNetlist((nl): FactsLayout => {
@@ -56,21 +58,37 @@ const layoutOf = perNetlist((nl): FactsLayout => {
     lineA: lead((l) => l.a),
     firstTip: new Int32Array(nl.denseCount).fill(-1),
     nextTip: new Int32Array(nl.lines.length),
+    heard: new Uint8Array(nl.sets.length * nl.lines.length),
+    heardAny: new Uint8Array(nl.sets.length),
   };
 });
+
+/** hears of a set that hears no line (most sets in most states): one array, never changed. */
+const HEARS_NONE: number[] = Object.freeze([]) as unknown as number[];
 
 export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
   const roots = evaluateNets(nl, mech);
   const gnd = roots[nl.dense[nl.gnd]];
   const nLines = nl.lines.length;
-  const { a, b, owner: owners, lineT, lineR, lineL, lineA, firstTip, nextTip } = layoutOf(nl);
+  const {
+    a,
+    b,
+    owner: owners,
+    lineT,
+    lineR,
+    lineL,
+    lineA,
+    firstTip,
+    nextTip,
+    heard,
+    heardAny,
+  } = layoutOf(nl);
   const rootT: number[] = new Array(nLines);
   const rootR: number[] = new Array(nLines);
   const rootL: number[] = new Array(nLines);
   const aClosed: boolean[] = new Array(nLines);
   const networkLoop: boolean[] = new Array(nLines);
   const setsOn: number[][] = new Array(nLines);
-  // lines chained by tip net, each chain in descending line order (the lists are sorted below)
   for (let i = 0; i < nLines; i++) {
     const t = roots[lineT[i]];
     rootT[i] = t;
@@ -84,9 +102,7 @@ export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
       firstTip[t] = i;
     }
   }
-  const nSets = nl.sets.length;
-  const hears: number[][] = new Array(nSets);
-  for (let s = 0; s < nSets; s++) hears[s] = [];
+  let anyHeard = false;
   for (let k = 0; k < a.length; k++) {
     const ra = roots[a[k]];
     const rb = roots[b[k]];
@@ -100,16 +116,31 @@ export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
       for (let i = firstTip[tip]; i >= 0; i = nextTip[i]) {
         if (rootR[i] !== ring) continue;
         networkLoop[i] = true;
-        if (owner >= 0 && !hears[owner].includes(i)) {
-          hears[owner].push(i);
-          setsOn[i].push(owner);
-        }
+        if (owner < 0) continue;
+        heard[owner * nLines + i] = 1;
+        heardAny[owner] = 1;
+        anyHeard = true;
       }
     }
   }
   for (let i = 0; i < nLines; i++) if (rootT[i] >= 0) firstTip[rootT[i]] = -1;
-  for (const h of hears) if (h.length > 1) h.sort(ascending);
-  for (const s of setsOn) if (s.length > 1) s.sort(ascending);
+  const nSets = nl.sets.length;
+  const hears: number[][] = new Array(nSets);
+  for (let s = 0; s < nSets; s++) {
+    if (!anyHeard || heardAny[s] === 0) {
+      hears[s] = HEARS_NONE;
+      continue;
+    }
+    heardAny[s] = 0;
+    const list: number[] = [];
+    for (let i = 0, at = s * nLines; i < nLines; i++, at++) {
+      if (heard[at] === 0) continue;
+      heard[at] = 0;
+      list.push(i);
+      setsOn[i].push(s);
+    }
+    hears[s] = list;
+  }
   return { aClosed, networkLoop, hears, setsOn, rootT, rootR, rootL, gnd, roots };
 }
 
