@@ -7,20 +7,7 @@ function sortedText(xs: readonly (string | number)[]): string {
   return [...xs].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0)).join(',');
 }
 
-type Keyed = Pick<Finding, 'code' | 'sets' | 'lines' | 'stations'>;
-
-/**
- * Keys by finding object: findings are never changed once made, and evaluations share them (finding-memo.ts), so a
- * sweep asks for the key of one object in many states.
- */
-const keys = new WeakMap<Keyed, string>();
-
 /** Identity of a finding across states: code + sets + lines + stations, each in sorted order. */
-export function findingKey(f: Keyed): string {
-  let key = keys.get(f);
-  if (key === undefined) {
-    key = `${f.code}|${sortedText(f.sets)}|${sortedText(f.lines)}|${sortedText(f.stations)}`;
-    keys.set(f, key);
-  }
-  return key;
+export function findingKey(f: Pick<Finding, 'code' | 'sets' | 'lines' | 'stations'>): string {
+  return `${f.code}|${sortedText(f.sets)}|${sortedText(f.lines)}|${sortedText(f.stations)}`;
 }
