@@ -144,12 +144,21 @@ export function computeFacts(nl: Netlist, mech: Mech): NetFacts {
   return { aClosed, networkLoop, hears, setsOn, rootT, rootR, rootL, gnd, roots };
 }
 
+/** Per set and key index: the one-line list a latched line key selects (shared: callers only read it). */
+export const keySelections = perNetlist((nl) =>
+  nl.sets.map((s) => s.keyLine.map((line) => (line > 0 ? [line] : []))),
+);
+
 /** Line numbers a set has selected: its latched line key's line, or the lines a keyless set is always on. */
-export function selectedLines(nl: Netlist, setIndex: number, mech: Mech): number[] {
-  const s = nl.sets[setIndex];
+export function selectedLines(
+  nl: Netlist,
+  setIndex: number,
+  mech: Mech,
+  selections: readonly (readonly number[][])[] = keySelections(nl),
+): number[] {
   const key = mech.pressedKey[setIndex];
-  if (key > 0) return s.keyLine[key] > 0 ? [s.keyLine[key]] : [];
-  return s.fixedLines;
+  if (key > 0) return selections[setIndex][key] ?? [];
+  return nl.sets[setIndex].fixedLines;
 }
 
 export function isActive(mech: Mech, setIndex: number): boolean {
