@@ -5,15 +5,8 @@
 import type { Plan } from '../document/plan.schema';
 import { getNetlist } from '../model/netlist';
 import type { SimState } from '../sim/state.schema';
-import type { Evaluation, Finding, FindingCode } from './evaluation.types';
-import {
-  allFindings,
-  eventMayAddFindings,
-  eventRulesFor,
-  findingFacts,
-  findingsWithCodes,
-  stateFindings,
-} from './findings';
+import type { Evaluation, Finding } from './evaluation.types';
+import { allFindings, eventMayAddFindings, eventRulesFor, findingFacts, stateFindings } from './findings';
 import {
   buzzersOn,
   lineFacts,
@@ -69,17 +62,17 @@ export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): 
 }
 
 /**
- * The findings of evaluate(plan, state) with one of these codes, paths and path-based wording included, without
- * observing lines, sets or stations (the sweep's last pass over the states it keeps): the same findings, in the
- * same order, as evaluate's with those codes.
+ * The findings of evaluate(plan, state), paths and path-based wording included, without observing lines, sets or
+ * stations (the sweep's last pass over the states it keeps): the same rules over the same facts, so the same
+ * findings in the same order.
  */
-export function evaluateFindingsOf(plan: Plan, state: SimState, codes: ReadonlySet<FindingCode>): Finding[] {
+export function evaluateFindingsWithPaths(plan: Plan, state: SimState): Finding[] {
   const nl = getNetlist(plan);
   const nets = computeNetsScratch(plan, state);
   const lineStates = lineStatesOf(nl, state);
   const lines = lineFacts(nl, nets.facts, lineStates, true);
   const buzzerOn = buzzersOn(nl, state, nets.facts);
-  return findingsWithCodes(findingFacts(nl, state, nets, lineStates, lines, buzzerOn, true), true, codes);
+  return allFindings(findingFacts(nl, state, nets, lineStates, lines, buzzerOn, true), true);
 }
 
 /**

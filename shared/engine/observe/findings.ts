@@ -1,7 +1,7 @@
 /** Finding evaluation: the registry's state rules over one state's facts, then the wiring rules (once per netlist). */
 import { isActive, keySelections, selectedLines, type NetFacts } from '../model/facts';
 import type { Netlist } from '../model/netlist';
-import type { Finding, FindingCode } from './evaluation.types';
+import type { Finding } from './evaluation.types';
 import { bySetPosition, orderOf } from './finding-memo';
 import { PathFinder } from './paths';
 import type { FindingFacts, LineFacts, StateRule, WiringRule } from './rule.types';
@@ -133,23 +133,6 @@ export function allFindings(f: FindingFacts, withPaths: boolean): Finding[] {
   const dynamic = stateFindings(f);
   const fixed = wiringFindings(f.nl, withPaths);
   return fixed.length ? dynamic.concat(fixed) : dynamic;
-}
-
-/**
- * The findings of allFindings with one of these codes, in the order allFindings lists them (a bySet rule's
- * findings keep their order among themselves): only the rules of those codes run.
- */
-export function findingsWithCodes(
-  f: FindingFacts,
-  withPaths: boolean,
-  codes: ReadonlySet<FindingCode>,
-): Finding[] {
-  const dynamic = stateFindings(
-    f,
-    STATE_RULES.filter((r) => codes.has(r.code)),
-  );
-  if (!WIRING_RULES.some((r) => codes.has(r.code))) return dynamic;
-  return dynamic.concat(wiringFindings(f.nl, withPaths).filter((x) => codes.has(x.code)));
 }
 
 /** False when no KSU event in this state can raise a finding whatever the sets do. */

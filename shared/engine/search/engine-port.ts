@@ -19,7 +19,7 @@ export {
   evaluate,
   evaluateWithNets,
   evaluateFindings,
-  evaluateFindingsOf,
+  evaluateFindingsWithPaths,
   eventFindings,
   eventMayAddFindings,
   computeNets,

@@ -9,13 +9,12 @@ import {
   createMechFor,
   evaluate,
   evaluateFindings,
-  evaluateFindingsOf,
+  evaluateFindingsWithPaths,
   eventFindings,
   eventMayAddFindings,
   getTemplate,
   initialState,
   type Finding,
-  type FindingCode,
   type Plan,
   type SimAction,
   type SimState,
@@ -522,15 +521,8 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
   };
 
   // The kept states, reached by their actions, evaluated once more for their findings with paths and sentences
-  // (observations are not needed): once per distinct state, and only the rules of the codes kept there. The
-  // opening's state is its actions applied to the start already; findings that share a state share its evaluation.
-  const keptCodes = new Map<string, Set<FindingCode>>();
-  for (const entry of best.values()) {
-    const stateKey = `${entry.opening}|${entry.combo.join(',')}`;
-    let codes = keptCodes.get(stateKey);
-    if (!codes) keptCodes.set(stateKey, (codes = new Set()));
-    codes.add(entry.finding.code);
-  }
+  // (observations are not needed), once per distinct state. The opening's state is its actions applied to the start
+  // already; findings that share a state share its evaluation.
   const kept: { swept: SweptFinding; key: string }[] = [];
   const evaluated = new Map<string, Map<string, Finding>>();
   for (const [key, entry] of best) {
@@ -541,7 +533,7 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
     let byKey = evaluated.get(stateKey);
     if (!byKey) {
       byKey = new Map();
-      for (const f of evaluateFindingsOf(plan, state, keptCodes.get(stateKey)!)) {
+      for (const f of evaluateFindingsWithPaths(plan, state)) {
         const k = findingKey(f);
         if (!byKey.has(k)) byKey.set(k, f);
       }
