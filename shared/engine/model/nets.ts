@@ -74,12 +74,31 @@ export function isContactClosed(c: ContactInfo, mech: Mech): boolean {
  * root[nl.dense[t1]] === root[nl.dense[t2]]. The array is reused by the next call.
  */
 export function evaluateNets(nl: Netlist, mech: Mech): Int32Array {
+  // The conditions as local constants: a hot loop reads them as immediates, not as imported bindings.
+  const KEY = COND_KEY;
+  const OFF_HOOK = COND_OFF_HOOK;
+  const NOT_HOLD = COND_NOT_HOLD;
+  const HANDS_FREE = COND_HANDS_FREE;
+  const { offHook, pressedKey, holdDown, handsFreeOn } = mech;
   const parent = nl.work;
   const m = nl.denseCount;
   for (let i = 0; i < m; i++) parent[i] = i;
   const { ca, cb, cond, mech: owner, key, count } = nl.hot;
   for (let i = 0; i < count; i++) {
-    if (!contactClosed(cond[i], owner[i], key[i], mech)) continue;
+    // contactClosed, inlined
+    const o = owner[i];
+    if (o < 0) continue;
+    const c = cond[i];
+    if (
+      c === KEY
+        ? pressedKey[o] !== key[i]
+        : c === OFF_HOOK
+          ? offHook[o] !== 1
+          : c === NOT_HOLD
+            ? holdDown[o] !== 0
+            : c !== HANDS_FREE || handsFreeOn[o] !== 1
+    )
+      continue;
     let a = ca[i];
     while (parent[a] !== a) a = parent[a] = parent[parent[a]];
     let b = cb[i];

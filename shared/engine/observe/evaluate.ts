@@ -62,6 +62,20 @@ export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): 
 }
 
 /**
+ * The findings of evaluate(plan, state), paths and path-based wording included, without observing lines, sets or
+ * stations (the sweep's last pass over the states it keeps): the same rules over the same facts, so the same
+ * findings in the same order.
+ */
+export function evaluateFindingsWithPaths(plan: Plan, state: SimState): Finding[] {
+  const nl = getNetlist(plan);
+  const nets = computeNetsScratch(plan, state);
+  const lineStates = lineStatesOf(nl, state);
+  const lines = lineFacts(nl, nets.facts, lineStates, true);
+  const buzzerOn = buzzersOn(nl, state, nets.facts);
+  return allFindings(findingFacts(nl, state, nets, lineStates, lines, buzzerOn, true), true);
+}
+
+/**
  * The findings a KSU event adds to those of its mechanical state, for the sweep: it evaluates each mechanical
  * state once with the KSU idle (evaluateFindings over initialState's lines) and every other event with this. The
  * keys (code, sets, lines, stations) of evaluateFindings(plan, state, nets) are exactly those of that idle

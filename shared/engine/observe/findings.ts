@@ -1,5 +1,5 @@
 /** Finding evaluation: the registry's state rules over one state's facts, then the wiring rules (once per netlist). */
-import { isActive, selectedLines, type NetFacts } from '../model/facts';
+import { isActive, keySelections, selectedLines, type NetFacts } from '../model/facts';
 import type { Netlist } from '../model/netlist';
 import type { Finding } from './evaluation.types';
 import { bySetPosition, orderOf } from './finding-memo';
@@ -29,8 +29,9 @@ export function findingFacts(
   const nSets = nl.sets.length;
   const selected: number[][] = new Array(nSets);
   const active: boolean[] = new Array(nSets);
+  const selections = keySelections(nl);
   for (let si = 0; si < nSets; si++) {
-    selected[si] = selectedLines(nl, si, mech);
+    selected[si] = selectedLines(nl, si, mech, selections);
     active[si] = isActive(mech, si);
   }
   return {

@@ -207,7 +207,15 @@ interface Loads {
   lampLines: Int32Array;
 }
 
-const loadScratch = new WeakMap<Netlist, Omit<Loads, 'buzzerOn'>>();
+interface LoadScratch extends Omit<Loads, 'buzzerOn'> {
+  /** Per dense root: the first line (index) whose lamp lead is on it, or -1 (all -1 between calls). */
+  firstLamp: Int32Array;
+  /** Per line index: the next line on the same lamp-lead net, and the line's lamp cadence code. */
+  nextLamp: Int32Array;
+  lineCode: Uint8Array;
+}
+
+const loadScratch = new WeakMap<Netlist, LoadScratch>();
 
 const LOAD_NONE = 0;
 const LOAD_BUZZER = 1;
@@ -245,17 +253,30 @@ function observeLoads(
       ringerOn: new Uint8Array(nSets),
       lampCode: new Uint8Array(nl.elements.length),
       lampLines: new Int32Array(nl.elements.length),
+      firstLamp: new Int32Array(nl.denseCount).fill(-1),
+      nextLamp: new Int32Array(nLines),
+      lineCode: new Uint8Array(nLines),
     };
     loadScratch.set(nl, scratch);
   }
-  const { ringerOn, lampCode, lampLines } = scratch;
+  const { ringerOn, lampCode, lampLines, firstLamp, nextLamp, lineCode } = scratch;
   ringerOn.fill(0);
   lampCode.fill(NO_LAMP);
   lampLines.fill(0);
   const buzzerOn: boolean[] = new Array(nSets).fill(false);
   const g = facts.gnd;
+  const { rootT, rootR, rootL } = facts;
   let ringing = false;
   for (let i = 0; i < nLines && !ringing; i++) ringing = !!lineStates[i]?.ringing;
+  // lines chained by lamp-lead net, so that a lamp finds the lines that light it in one look-up
+  for (let i = 0; i < nLines; i++) {
+    lineCode[i] = CODE_OF_CADENCE[lines[i].lamp];
+    const l = rootL[i];
+    if (l >= 0) {
+      nextLamp[i] = firstLamp[l];
+      firstLamp[l] = i;
+    }
+  }
   const { kind, a, b, owner } = loadsOf(nl);
   for (let k = 0; k < kind.length; k++) {
     const what = kind[k];
@@ -269,26 +290,26 @@ function observeLoads(
     } else if (what === LOAD_RINGER) {
       if (!ringing) continue;
       for (let i = 0; i < nLines; i++) {
-        const x = facts.rootT[i];
-        const y = facts.rootR[i];
+        const x = rootT[i];
+        const y = rootR[i];
         if (lineStates[i]?.ringing && ((ra === x && rb === y) || (ra === y && rb === x)))
           ringerOn[owner[k]] = 1;
       }
     } else {
       // lit by the lines whose lamp lead is on one end while ground is on the other
       const lead = ra === g ? rb : rb === g ? ra : -1;
-      if (lead < 0) continue;
+      if (!(lead >= 0)) continue;
       let code = 0;
       let lit = 0;
-      for (let i = 0; i < nLines; i++) {
-        if (facts.rootL[i] !== lead) continue;
+      for (let i = firstLamp[lead]; i >= 0; i = nextLamp[i]) {
         lit |= 1 << i;
-        code = Math.max(code, CODE_OF_CADENCE[lines[i].lamp]);
+        if (lineCode[i] > code) code = lineCode[i];
       }
       lampCode[k] = code;
       lampLines[k] = lit;
     }
   }
+  for (let i = 0; i < nLines; i++) if (rootL[i] >= 0) firstLamp[rootL[i]] = -1;
   return { ringerOn, buzzerOn, lampCode, lampLines };
 }
 
@@ -310,6 +331,11 @@ function sameLineNumbers(nl: Netlist, xs: readonly number[], bits: number): bool
 
 /** The last observation of each set of a netlist: kept when a set shows the same in the next evaluation. */
 const lastSets = new WeakMap<Netlist, (SetObservation | undefined)[]>();
+/**
+ * What each of those observations' keys shows, as numbers: per key (in prev.keys order) its cadence code and the
+ * bits of the line indices on its lamp, from which its lamp and lines were written.
+ */
+const lastLamps = new WeakMap<SetObservation, Int32Array>();
 
 /** Does the set's last observation say what it says now? (Compared field by field, nothing allocated.) */
 function stillSays(
@@ -342,11 +368,18 @@ function stillSays(
     if (!was || was.tone !== tone || was.line !== number) return false;
   }
   if (t !== prev.tones.length) return false;
-  for (const key of prev.keys) {
-    const el = lampOf[key.index] ?? -1;
+  const lamps = lastLamps.get(prev);
+  const keys = prev.keys;
+  for (let k = 0; k < keys.length; k++) {
+    const el = lampOf[keys[k].index] ?? -1;
     const code = el >= 0 ? loads.lampCode[el] : NO_LAMP;
-    if (key.lamp !== CADENCE_BY_CODE[code]) return false;
-    if (!sameLineNumbers(nl, key.lines, el >= 0 ? loads.lampLines[el] : 0)) return false;
+    const lit = el >= 0 ? loads.lampLines[el] : 0;
+    if (lamps) {
+      if (lamps[2 * k] !== code || lamps[2 * k + 1] !== lit) return false;
+      continue;
+    }
+    if (keys[k].lamp !== CADENCE_BY_CODE[code]) return false;
+    if (!sameLineNumbers(nl, keys[k].lines, lit)) return false;
   }
   return true;
 }
@@ -382,17 +415,22 @@ export function observeSets(
     }
     const keySpecs = s.template?.keys ?? [];
     const keys: SetObservation['keys'] = new Array(keySpecs.length);
+    const lamps = new Int32Array(2 * keySpecs.length);
     for (let k = 0; k < keySpecs.length; k++) {
       const spec = keySpecs[k];
       const el = layout.lampOf[si][spec.index] ?? -1;
+      const code = el >= 0 ? lampCode[el] : NO_LAMP;
+      const lit = el >= 0 ? lampLines[el] : 0;
+      lamps[2 * k] = code;
+      lamps[2 * k + 1] = lit;
       keys[k] = {
         index: spec.index,
         label: spec.label,
-        lamp: CADENCE_BY_CODE[el >= 0 ? lampCode[el] : NO_LAMP],
-        lines: el >= 0 ? lineNumbers(nl, lampLines[el]) : [],
+        lamp: CADENCE_BY_CODE[code],
+        lines: lineNumbers(nl, lit),
       };
     }
-    sets[si] = last[si] = {
+    const obs: SetObservation = {
       set: s.id,
       offHook: mech.offHook[si] === 1,
       pressedKey: mech.pressedKey[si] || null,
@@ -403,6 +441,8 @@ export function observeSets(
       buzzer: buzzerOn[si],
       ringer: ringerOn[si] === 1,
     };
+    lastLamps.set(obs, lamps);
+    sets[si] = last[si] = obs;
   }
   return { sets, buzzerOn };
 }

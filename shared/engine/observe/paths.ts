@@ -150,9 +150,15 @@ interface Tree {
   queue: Int32Array;
   prev: Int32Array;
   prevEdge: Int32Array;
-  /** Every contact next to a terminal of the tree, and whether it was closed. */
+  /** Every contact next to a terminal of the tree (once each), and whether it was closed. */
   contacts: Int32Array;
   closed: Uint8Array;
+  /**
+   * The sets owning those contacts and their positions when it grew (offHook, pressedKey, holdDown, handsFreeOn
+   * per set), or null when it grew with no contacts closed (mech null): while they are unchanged it still holds.
+   */
+  owners: Int32Array | null;
+  positions: Int32Array | null;
   /** Keyed by from × terminal count + to. */
   paths: Map<number, TerminalPath | null>;
 }
@@ -166,6 +172,11 @@ const ROOTS_MAX = 256;
 
 let growQueue = new Int32Array(0);
 const grownContacts: number[] = [];
+/** Per contact: the last grow that listed it (stamps, so that a tree lists each contact once). */
+let contactSeen = new Int32Array(0);
+let growStamp = 0;
+/** Per set: the last grow that listed it among a tree's owners. */
+let ownerSeen = new Int32Array(0);
 
 /**
  * Paths in one state from a few sources to many targets: one breadth-first tree per net, rooted at the first
@@ -313,6 +324,21 @@ export class PathFinder {
   }
 
   private holds(tree: Tree): boolean {
+    const { owners, positions } = tree;
+    const m = this.mech;
+    if (m !== null && owners !== null && positions !== null) {
+      // the sets next to the tree are where they were: every contact is as it was
+      let same = true;
+      for (let k = 0, at = 0; k < owners.length && same; k++, at += 4) {
+        const o = owners[k];
+        same =
+          m.offHook[o] === positions[at] &&
+          m.pressedKey[o] === positions[at + 1] &&
+          m.holdDown[o] === positions[at + 2] &&
+          m.handsFreeOn[o] === positions[at + 3];
+      }
+      if (same) return true;
+    }
     const { contacts, closed } = tree;
     for (let k = 0; k < contacts.length; k++)
       if (this.closed(contacts[k]) !== (closed[k] === 1)) return false;
@@ -328,6 +354,9 @@ export class PathFinder {
     const queue = growQueue;
     const contacts = grownContacts;
     contacts.length = 0;
+    if (contactSeen.length < this.nl.contacts.length) contactSeen = new Int32Array(this.nl.contacts.length);
+    const seen = contactSeen;
+    const stamp = ++growStamp;
     let tail = 0;
     queue[tail++] = root;
     prev[root] = root;
@@ -337,7 +366,10 @@ export class PathFinder {
       for (let k = offset[t]; k < end; k++) {
         const c = contact[k];
         if (c >= 0) {
-          contacts.push(c);
+          if (seen[c] !== stamp) {
+            seen[c] = stamp;
+            contacts.push(c);
+          }
           if (!this.closed(c)) continue;
         }
         const next = to[k];
@@ -354,6 +386,8 @@ export class PathFinder {
       prevEdge: new Int32Array(tail),
       contacts: Int32Array.from(contacts),
       closed: new Uint8Array(contacts.length),
+      owners: null,
+      positions: null,
       paths: new Map(),
     };
     for (let k = 0; k < tail; k++) {
@@ -364,6 +398,25 @@ export class PathFinder {
       prevEdge[t] = -1;
     }
     for (let k = 0; k < contacts.length; k++) tree.closed[k] = this.closed(contacts[k]) ? 1 : 0;
+    const m = this.mech;
+    if (m !== null) {
+      if (ownerSeen.length < this.nl.sets.length) ownerSeen = new Int32Array(this.nl.sets.length);
+      const owners: number[] = [];
+      for (let k = 0; k < contacts.length; k++) {
+        const o = this.adj.mech[contacts[k]];
+        if (o < 0 || ownerSeen[o] === stamp) continue;
+        ownerSeen[o] = stamp;
+        owners.push(o);
+      }
+      tree.owners = Int32Array.from(owners);
+      tree.positions = new Int32Array(4 * owners.length);
+      owners.forEach((o, k) => {
+        tree.positions![4 * k] = m.offHook[o];
+        tree.positions![4 * k + 1] = m.pressedKey[o];
+        tree.positions![4 * k + 2] = m.holdDown[o];
+        tree.positions![4 * k + 3] = m.handsFreeOn[o];
+      });
+    }
     return tree;
   }
 }

@@ -19,6 +19,7 @@ export {
   evaluate,
   evaluateWithNets,
   evaluateFindings,
+  evaluateFindingsWithPaths,
   eventFindings,
   eventMayAddFindings,
   computeNets,

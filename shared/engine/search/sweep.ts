@@ -9,6 +9,7 @@ import {
   createMechFor,
   evaluate,
   evaluateFindings,
+  evaluateFindingsWithPaths,
   eventFindings,
   eventMayAddFindings,
   getTemplate,
@@ -519,8 +520,9 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
     return applyActions(plan, state, moveActions(setIds[last], moves[last][combo[last]]));
   };
 
-  // The kept states, reached by their actions, evaluated once more in full for paths and sentences. The opening's
-  // state is its actions applied to the start already; findings that share a state share its evaluation.
+  // The kept states, reached by their actions, evaluated once more for their findings with paths and sentences
+  // (observations are not needed), once per distinct state. The opening's state is its actions applied to the start
+  // already; findings that share a state share its evaluation.
   const kept: { swept: SweptFinding; key: string }[] = [];
   const evaluated = new Map<string, Map<string, Finding>>();
   for (const [key, entry] of best) {
@@ -531,7 +533,7 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
     let byKey = evaluated.get(stateKey);
     if (!byKey) {
       byKey = new Map();
-      for (const f of evaluate(plan, state).findings) {
+      for (const f of evaluateFindingsWithPaths(plan, state)) {
         const k = findingKey(f);
         if (!byKey.has(k)) byKey.set(k, f);
       }
