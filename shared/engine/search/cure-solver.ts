@@ -7,7 +7,7 @@ import type { LegacyHighs } from 'highs';
 import { publicChange, withChanges, type CureResult } from './cure';
 import { candidatesFor, liftsOf, type Candidate, type Problem } from './cure-candidates';
 import { seedWiringCovers } from './cure-seeds';
-import { stationPortOfSets, sweep } from './sweep';
+import { stationPortOfSets, sweep, type SweepResult } from './sweep';
 import { checkRequired, type RequiredFailure } from './required';
 import type { Finding, Plan } from './engine-port';
 
@@ -297,7 +297,9 @@ function partsOf(plan: Plan, setIds: readonly string[]): Set<string> {
  * required functions, proved minimal by the integer program (see README). Asynchronous: it loads the solver.
  */
 export async function cureOptimal(input: Plan, opts: OptimalCureOptions = {}): Promise<OptimalCureResult> {
-  const result = await cureOnce(input, opts);
+  // The sweep reads the plan's wiring, never plan.required: one sweep of it serves the cure and every choice.
+  const first = sweep(input);
+  const result = await cureOnce(input, opts, first);
   const keep = opts.keepAddOn ?? [];
   const untouched = opts.untouched ?? [];
   // What each option costs: the same cure with that one option left out.
@@ -306,11 +308,15 @@ export async function cureOptimal(input: Plan, opts: OptimalCureOptions = {}): P
     ...untouched.map((set) => ({ set, option: 'untouched' as const })),
   ];
   for (const choice of options) {
-    const without = await cureOnce(input, {
-      ...opts,
-      keepAddOn: keep.filter((s) => !(choice.option === 'keep-add-on' && s === choice.set)),
-      untouched: untouched.filter((s) => !(choice.option === 'untouched' && s === choice.set)),
-    });
+    const without = await cureOnce(
+      input,
+      {
+        ...opts,
+        keepAddOn: keep.filter((s) => !(choice.option === 'keep-add-on' && s === choice.set)),
+        untouched: untouched.filter((s) => !(choice.option === 'untouched' && s === choice.set)),
+      },
+      first,
+    );
     const both = without.ok && result.ok;
     result.choices.push({
       ...choice,
@@ -322,7 +328,12 @@ export async function cureOptimal(input: Plan, opts: OptimalCureOptions = {}): P
   return result;
 }
 
-async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalCureResult> {
+/** The cure of input with these options; `first` is the sweep of input. */
+async function cureOnce(
+  input: Plan,
+  opts: OptimalCureOptions,
+  first: SweepResult,
+): Promise<OptimalCureResult> {
   const keep = opts.keepAddOn ?? [];
   const untouched = opts.untouched ?? [];
   const plan: Plan = keep.length
@@ -335,7 +346,6 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
       }
     : input;
   const ports = stationPortOfSets(plan);
-  const first = sweep(plan);
   const before = first.findings.map((f) => f.finding);
   // The plan's own required functions: they decide only whether a plan with no finding needs a cure, and are
   // reported when there is no cure.
