@@ -4,10 +4,10 @@
  * ("Cure as an integer program").
  */
 import type { LegacyHighs } from 'highs';
-import { publicChange, withChanges, type CureResult } from './cure';
+import { publicChange, withChanges, type CureChange, type CureResult } from './cure';
 import { candidatesFor, liftsOf, type Candidate, type Problem } from './cure-candidates';
 import { seedWiringCovers } from './cure-seeds';
-import { stationPortOfSets, sweep } from './sweep';
+import { stationPortOfSets, sweep, type SweepResult } from './sweep';
 import { checkRequired, type RequiredFailure } from './required';
 import type { Finding, Plan } from './engine-port';
 
@@ -62,6 +62,9 @@ function defaultSolver(): Promise<LegacyHighs> {
   solverPromise ??= import('highs').then((m) => m.default());
   return solverPromise;
 }
+
+/** The sweep of the cure's plan with these changes made (`plan`), shared by the cures of one cureOptimal call. */
+type SweepOf = (plan: Plan, changes: readonly CureChange[]) => SweepResult;
 
 interface Problemset {
   candidates: Map<string, Candidate>;
@@ -164,6 +167,7 @@ async function seededLoop(
   allowed: (c: Candidate) => boolean,
   opts: OptimalCureOptions,
   ports: number[],
+  sweepOf: SweepOf,
 ): Promise<LoopResult | null> {
   if ([...ps.candidates.values()].some((c) => c.kind === 'move')) return null;
   const seeded: Problemset = {
@@ -173,7 +177,7 @@ async function seededLoop(
   };
   seedWiringCovers(plan, (seedPlan, finding) => coverOf(seeded, seedPlan, { finding }, ports));
   if (seeded.constraints.length === ps.constraints.length) return null;
-  const loop = await solveLoop(plan, seeded, allowed, opts);
+  const loop = await solveLoop(plan, seeded, allowed, opts, sweepOf);
   if (!loop.ok || loop.chosen.some((c) => c.kind === 'move')) return null;
   // Any other cure of this weight, over every lift the plan has (the unseeded rounds may offer lifts these rounds
   // never saw). Weights are multiples of 1/1000 (cure-candidates.ts): half of that is no other weight.
@@ -213,6 +217,7 @@ async function solveLoop(
   ps: Problemset,
   allowed: (c: Candidate) => boolean,
   opts: OptimalCureOptions,
+  sweepOf: SweepOf,
 ): Promise<LoopResult> {
   const highs = await (opts.loadSolver ?? defaultSolver)();
   const ports = stationPortOfSets(plan);
@@ -250,8 +255,9 @@ async function solveLoop(
     }
     chosen.sort((a, b) => a.id.localeCompare(b.id));
     const weight = chosen.reduce((s, c) => s + CHANGE_WEIGHT + c.rank, 0);
-    const cured = withChanges(plan, chosen.map(publicChange));
-    const swept = sweep(cured);
+    const changes = chosen.map(publicChange);
+    const cured = withChanges(plan, changes);
+    const swept = sweepOf(cured, changes);
     after = swept.findings.map((f) => f.finding);
     // The required functions only decide a round whose sweep is clean (a round with findings fails either way and
     // adds no constraint from them); otherwise they are checked when the loop ends without a cure, for its report.
@@ -297,7 +303,16 @@ function partsOf(plan: Plan, setIds: readonly string[]): Set<string> {
  * required functions, proved minimal by the integer program (see README). Asynchronous: it loads the solver.
  */
 export async function cureOptimal(input: Plan, opts: OptimalCureOptions = {}): Promise<OptimalCureResult> {
-  const result = await cureOnce(input, opts);
+  // The sweep reads the plan's wiring, never plan.required (all that the options change): one sweep of the plan,
+  // and of each changed plan, serves the cure and every choice.
+  const swept = new Map<string, SweepResult>();
+  const sweepOf: SweepOf = (plan, changes) => {
+    const key = JSON.stringify(changes);
+    let result = swept.get(key);
+    if (!result) swept.set(key, (result = sweep(plan)));
+    return result;
+  };
+  const result = await cureOnce(input, opts, sweepOf);
   const keep = opts.keepAddOn ?? [];
   const untouched = opts.untouched ?? [];
   // What each option costs: the same cure with that one option left out.
@@ -306,11 +321,15 @@ export async function cureOptimal(input: Plan, opts: OptimalCureOptions = {}): P
     ...untouched.map((set) => ({ set, option: 'untouched' as const })),
   ];
   for (const choice of options) {
-    const without = await cureOnce(input, {
-      ...opts,
-      keepAddOn: keep.filter((s) => !(choice.option === 'keep-add-on' && s === choice.set)),
-      untouched: untouched.filter((s) => !(choice.option === 'untouched' && s === choice.set)),
-    });
+    const without = await cureOnce(
+      input,
+      {
+        ...opts,
+        keepAddOn: keep.filter((s) => !(choice.option === 'keep-add-on' && s === choice.set)),
+        untouched: untouched.filter((s) => !(choice.option === 'untouched' && s === choice.set)),
+      },
+      sweepOf,
+    );
     const both = without.ok && result.ok;
     result.choices.push({
       ...choice,
@@ -322,7 +341,8 @@ export async function cureOptimal(input: Plan, opts: OptimalCureOptions = {}): P
   return result;
 }
 
-async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalCureResult> {
+/** The cure of input with these options. */
+async function cureOnce(input: Plan, opts: OptimalCureOptions, sweepOf: SweepOf): Promise<OptimalCureResult> {
   const keep = opts.keepAddOn ?? [];
   const untouched = opts.untouched ?? [];
   const plan: Plan = keep.length
@@ -335,7 +355,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
       }
     : input;
   const ports = stationPortOfSets(plan);
-  const first = sweep(plan);
+  const first = sweepOf(input, []);
   const before = first.findings.map((f) => f.finding);
   // The plan's own required functions: they decide only whether a plan with no finding needs a cure, and are
   // reported when there is no cure.
@@ -376,7 +396,8 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions): Promise<OptimalC
   const allowedWith = (blocked: Set<string>) => (c: Candidate) => !blocked.has(c.part);
   const allowed = allowedWith(forbidden);
   const loop =
-    (await seededLoop(plan, ps, allowed, opts, ports)) ?? (await solveLoop(plan, ps, allowed, opts));
+    (await seededLoop(plan, ps, allowed, opts, ports, sweepOf)) ??
+    (await solveLoop(plan, ps, allowed, opts, sweepOf));
 
   const choices: CureChoiceCost[] = [];
   if (!loop.ok) {

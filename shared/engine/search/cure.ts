@@ -7,7 +7,6 @@ import {
   computeNets,
   evaluateFindings,
   evaluateWithNets,
-  findLeadPart,
   findSet,
   initialState,
   standardCrossConnect,
@@ -61,10 +60,25 @@ interface Probe {
 // Applying changes
 
 export function withChanges(plan: Plan, changes: readonly CureChange[]): Plan {
-  // A plan is plain JSON: a JSON round trip is its deep copy (and needs no DOM or Node global).
-  const next = JSON.parse(JSON.stringify(plan)) as Plan;
+  // Plans are never changed in place: the parts a change touches (and the KSU, when its cross-connect changes) are
+  // copied, every other part is shared with the plan, and so is its wiring in the netlist (model/netlist.ts).
+  const next: Plan = { ...plan, sets: plan.sets.slice(), addOns: plan.addOns.slice() };
+  const copied = new Set<object>();
+  const own = <T extends object>(list: T[], i: number): T => {
+    if (!copied.has(list[i])) {
+      list[i] = { ...list[i] };
+      copied.add(list[i]);
+    }
+    return list[i];
+  };
+  const ownLeadPart = (id: string) => {
+    const s = next.sets.findIndex((x) => x.id === id);
+    if (s >= 0) return own(next.sets, s);
+    const a = next.addOns.findIndex((x) => x.id === id);
+    return a >= 0 ? own(next.addOns, a) : undefined;
+  };
   for (const ch of changes) {
-    const target = findLeadPart(next, ch.part);
+    const target = ownLeadPart(ch.part);
     if (!target) continue;
     target.leadChanges = [...target.leadChanges, ch.change];
     if (ch.crossConnect) {
@@ -73,14 +87,19 @@ export function withChanges(plan: Plan, changes: readonly CureChange[]): Plan {
       const base = next.ksu.crossConnect ?? standardCrossConnect(next.ksu);
       const same = (x: CrossConnect, y: CrossConnect) =>
         x.port === y.port && x.pair === y.pair && JSON.stringify(x.lead) === JSON.stringify(y.lead);
-      next.ksu.crossConnect = [
-        ...base.filter((x) => !(x.port === added.port && x.pair === added.pair) && !(gone && same(x, gone))),
-        added,
-      ];
+      next.ksu = {
+        ...next.ksu,
+        crossConnect: [
+          ...base.filter(
+            (x) => !(x.port === added.port && x.pair === added.pair) && !(gone && same(x, gone)),
+          ),
+          added,
+        ],
+      };
     }
     if (ch.station) {
       const set = findSet(next, ch.part);
-      if (set) set.station = ch.station;
+      if (set) own(next.sets, next.sets.indexOf(set)).station = ch.station;
     }
   }
   return next;

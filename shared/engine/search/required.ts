@@ -5,7 +5,8 @@
  */
 import {
   applyActions,
-  computeNets,
+  computeNetsInto,
+  createMechFor,
   findSet,
   getNetlist,
   getTemplate,
@@ -29,21 +30,39 @@ export interface RequiredFailure {
   message: string;
 }
 
-/**
- * What the sets, lines and stations do in a state: the observations of evaluate(plan, state), without its findings
- * and wiring symptoms (no check reads them; symptoms only add notes and noise).
- */
-function observe(plan: Plan, state: SimState): Pick<Evaluation, 'lines' | 'sets' | 'stations'> {
-  const nl = getNetlist(plan);
-  const { mech, facts } = computeNets(plan, state);
-  const lineStates = lineStatesOf(nl, state);
-  const lines = observeLines(nl, facts, lineStates);
-  const { sets, buzzerOn } = observeSets(nl, state, mech, facts, lineStates, lines);
-  return { lines, sets, stations: observeStations(nl, state, buzzerOn) };
+/** Observes states of one plan: its netlist, initial state and one nets buffer, set up once for every check. */
+interface Observer {
+  plan: Plan;
+  /**
+   * What the lines do in a state and, as asked, the sets and the stations: the observations of
+   * evaluate(plan, state), without its findings and wiring symptoms (no check reads them; symptoms only add notes
+   * and noise). Sets and stations are left empty when not asked for.
+   */
+  observe(
+    state: SimState,
+    upTo: 'lines' | 'sets' | 'stations',
+  ): Pick<Evaluation, 'lines' | 'sets' | 'stations'>;
+  /** The actions applied to a state, the plan's initial state by default. */
+  run(actions: SimAction[], from?: SimState): SimState;
 }
 
-function run(plan: Plan, actions: SimAction[], from: SimState = initialState(plan)): SimState {
-  return applyActions(plan, from, actions);
+function observerOf(plan: Plan): Observer {
+  const nl = getNetlist(plan);
+  const start = initialState(plan);
+  // Each state's nets are read before the next state's are computed, so one buffer serves them all.
+  const mech = createMechFor(plan);
+  return {
+    plan,
+    observe(state, upTo) {
+      const { facts } = computeNetsInto(plan, state, mech);
+      const lineStates = lineStatesOf(nl, state);
+      const lines = observeLines(nl, facts, lineStates);
+      if (upTo === 'lines') return { lines, sets: [], stations: [] };
+      const { sets, buzzerOn } = observeSets(nl, state, mech, facts, lineStates, lines);
+      return { lines, sets, stations: upTo === 'stations' ? observeStations(nl, state, buzzerOn) : [] };
+    },
+    run: (actions, from = start) => applyActions(plan, from, actions),
+  };
 }
 
 /** Lines the set can take: a line key (or a fixed line) for a line the KSU has. */
@@ -59,7 +78,7 @@ export function linesOfSet(plan: Plan, setId: string): { line: number; key: numb
   return [...keyed, ...fixed];
 }
 
-function checkLines(plan: Plan, out: RequiredFailure[]): void {
+function checkLines({ plan, observe, run }: Observer, out: RequiredFailure[]): void {
   for (const set of plan.sets) {
     const hasHold = (getTemplate(set.template)?.keys ?? []).some((k) => k.kind === 'hold');
     for (const { line, key } of linesOfSet(plan, set.id)) {
@@ -73,8 +92,8 @@ function checkLines(plan: Plan, out: RequiredFailure[]): void {
           message: `${set.name} ${what} line ${line}`,
         });
       const select: SimAction[] = key === null ? [] : [{ kind: 'press-key', set: set.id, key }];
-      let state = run(plan, [...select, { kind: 'lift-handset', set: set.id }]);
-      let ev = observe(plan, state);
+      let state = run([...select, { kind: 'lift-handset', set: set.id }]);
+      let ev = observe(state, 'sets');
       const obs = ev.lines.find((l) => l.line === line);
       const hears = ev.sets.find((s) => s.set === set.id)?.hears ?? [];
       if (!obs?.aClosed || !obs.loopClosed || !hears.includes(line)) {
@@ -83,37 +102,36 @@ function checkLines(plan: Plan, out: RequiredFailure[]): void {
       }
       if (hears.length > 1) fail('extra', 'does not hear alone on');
       if (hasHold && key !== null) {
-        state = run(plan, [{ kind: 'press-hold', set: set.id }], state);
-        ev = observe(plan, state);
+        state = run([{ kind: 'press-hold', set: set.id }], state);
+        ev = observe(state, 'lines');
         if (ev.lines.find((l) => l.line === line)?.status !== 'held') {
           fail('missing', 'cannot hold');
           continue;
         }
-        state = run(plan, [{ kind: 'press-key', set: set.id, key }], state);
-        ev = observe(plan, state);
+        state = run([{ kind: 'press-key', set: set.id, key }], state);
+        ev = observe(state, 'sets');
         if (!(ev.sets.find((s) => s.set === set.id)?.hears ?? []).includes(line)) {
           fail('missing', 'cannot take back from hold');
           continue;
         }
       }
       state = run(
-        plan,
         [
           { kind: 'hang-up', set: set.id },
           { kind: 'release-keys', set: set.id },
         ],
         state,
       );
-      ev = observe(plan, state);
+      ev = observe(state, 'lines');
       const after = ev.lines.find((l) => l.line === line);
       if (after && (after.aClosed || after.status !== 'idle')) fail('extra', 'cannot release');
     }
   }
 }
 
-function checkIntercom(plan: Plan, out: RequiredFailure[]): void {
+function checkIntercom({ plan, observe, run }: Observer, out: RequiredFailure[]): void {
   for (const station of plan.ksu.stations) {
-    const ev = observe(plan, run(plan, [{ kind: 'intercom-call', station: station.id }]));
+    const ev = observe(run([{ kind: 'intercom-call', station: station.id }]), 'stations');
     const obs = ev.stations.find((s) => s.station === station.id);
     const assigned = plan.sets.filter((s) => s.station === station.id).map((s) => s.id);
     const buzzing = obs?.buzzing ?? [];
@@ -143,7 +161,7 @@ function checkIntercom(plan: Plan, out: RequiredFailure[]): void {
   }
 }
 
-function checkHandsFree(plan: Plan, out: RequiredFailure[]): void {
+function checkHandsFree({ plan, observe, run }: Observer, out: RequiredFailure[]): void {
   for (const setId of plan.required.handsFreeSets) {
     const set = findSet(plan, setId);
     const name = set?.name ?? setId;
@@ -162,11 +180,11 @@ function checkHandsFree(plan: Plan, out: RequiredFailure[]): void {
       fail([]);
       continue;
     }
-    const state = run(plan, [
+    const state = run([
       { kind: 'press-key', set: setId, key: first.key as number },
       { kind: 'hands-free', set: setId, on: true },
     ]);
-    const obs = observe(plan, state).lines.find((l) => l.line === first.line);
+    const obs = observe(state, 'lines').lines.find((l) => l.line === first.line);
     if (!obs?.aClosed || !obs.loopClosed || !obs.setsOn.includes(setId)) fail([first.line]);
   }
 }
@@ -174,8 +192,9 @@ function checkHandsFree(plan: Plan, out: RequiredFailure[]): void {
 /** Every way plan.required is not met, empty when all is well. */
 export function checkRequired(plan: Plan): RequiredFailure[] {
   const out: RequiredFailure[] = [];
-  if (plan.required.allLinesOnEverySet) checkLines(plan, out);
-  if (plan.required.intercomPerStation) checkIntercom(plan, out);
-  checkHandsFree(plan, out);
+  const observer = observerOf(plan);
+  if (plan.required.allLinesOnEverySet) checkLines(observer, out);
+  if (plan.required.intercomPerStation) checkIntercom(observer, out);
+  checkHandsFree(observer, out);
   return out;
 }
