@@ -150,7 +150,7 @@ interface PressTimes {
 async function tracePresses(page: Page, file: string): Promise<void> {
   const cdp = await page.context().newCDPSession(page);
   const events: TraceEvent[] = [];
-  cdp.on('Tracing.dataCollected', ({ value }) => events.push(...(value as TraceEvent[])));
+  cdp.on('Tracing.dataCollected', ({ value }) => events.push(...(value as unknown as TraceEvent[])));
   const done = new Promise<void>((resolve) => cdp.once('Tracing.tracingComplete', () => resolve()));
   await cdp.send('Tracing.start', { categories: 'devtools.timeline,blink', transferMode: 'ReportEvents' });
   await pressTimes(page, 20);
