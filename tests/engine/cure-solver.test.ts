@@ -2,7 +2,8 @@
  * answers where it cannot (the 40-set layout needs far more than eight changes). */
 import { describe, expect, it } from 'vitest';
 import { applyCure, checkRequired, cure, cureOptimal, sweep, type Plan } from '../../shared/engine/index';
-import { largePlan } from '../bench/bench-plans';
+import highsLoader, { type LegacyHighs } from 'highs';
+import { largePlan, setsOnOneAdapter } from '../bench/bench-plans';
 import { examplePlan } from '../support/example-plans';
 import { withAddOnForEverySet } from './cure-plans';
 
@@ -64,4 +65,24 @@ describe('cure by integer programming', () => {
       expect.objectContaining({ set: lifted, option: 'untouched', extraChanges: 0 }),
     ]);
   }, 60_000);
+
+  it('finds the cheapest cure of the fewest changes whichever route the solver takes to it', async () => {
+    // Four hands-free wired sets on one adapter: cures of ten changes that differ only in cost rank (buzzer moves
+    // against lifts). The solver's heuristics change the order it meets them in; the optimum must not change.
+    const plan = setsOnOneAdapter(4);
+    const highs = await highsLoader();
+    const withoutHeuristics = (): Promise<LegacyHighs> =>
+      Promise.resolve({
+        ...highs,
+        solve: (problem: string, options?: Parameters<LegacyHighs['solve']>[1]) =>
+          highs.solve(problem, { ...options, mip_heuristic_run_feasibility_jump: false } as Parameters<
+            LegacyHighs['solve']
+          >[1]),
+      });
+    const usual = await cureOptimal(plan);
+    const other = await cureOptimal(plan, { loadSolver: withoutHeuristics });
+    expect(usual.ok && other.ok).toBe(true);
+    expect(other.changes).toHaveLength(usual.changes.length);
+    expect(other.weight).toBeCloseTo(usual.weight, 6);
+  }, 120_000);
 });

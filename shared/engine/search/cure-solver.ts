@@ -49,6 +49,13 @@ export interface OptimalCureResult extends CureResult {
 /** Each change counts this much, so fewer changes always win; the cost rank breaks ties. */
 const CHANGE_WEIGHT = 1000;
 
+/**
+ * The solver stops only at the proven optimum: its default relative gap (1e-4) lets a solution about one unit of
+ * weight above the best bound pass as optimal at ten changes, more than the cost ranks that break ties between
+ * cures of as many changes (multiples of 1/1000).
+ */
+const EXACT: Parameters<LegacyHighs['solve']>[1] = { mip_rel_gap: 0 };
+
 type Constraint =
   /** At least one of these. */
   | { kind: 'cover'; ids: string[] }
@@ -193,7 +200,7 @@ async function seededLoop(
     { kind: 'not-exactly', ids: loop.chosen.map((c) => c.id) },
   ];
   const highs = await (opts.loadSolver ?? defaultSolver)();
-  return highs.solve(lpText(check, allowed).text).Status === 'Infeasible' ? loop : null;
+  return highs.solve(lpText(check, allowed).text, EXACT).Status === 'Infeasible' ? loop : null;
 }
 
 interface LoopResult {
@@ -228,7 +235,7 @@ async function solveLoop(
   for (let round = 1; round <= maxRounds; round++) {
     if (opts.shouldStop?.()) break;
     const { text, names } = lpText(ps, allowed);
-    const solution = highs.solve(text);
+    const solution = highs.solve(text, EXACT);
     if (solution.Status !== 'Optimal') {
       // Infeasible: some constraint has no allowed candidate, or the candidates exclude each other.
       const empty = ps.constraints.findIndex((c) => c.kind === 'cover' && !c.ids.some((id) => names.has(id)));
