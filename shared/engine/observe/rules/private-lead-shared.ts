@@ -8,11 +8,13 @@ import {
   KIND_CABLE,
   KIND_CROSS_CONNECT,
   KIND_LEAD,
+  type Edge,
   type Netlist,
   type PartInfo,
+  type TerminalInfo,
 } from '../../model/netlist';
 import type { Finding } from '../evaluation.types';
-import { findPath, firstCrossing, crossingSentence, toHops } from '../paths';
+import { findPath, firstCrossing, crossingSentence, toHops, type TerminalPath } from '../paths';
 import type { WiringRule } from '../rule.types';
 
 interface Shared {
@@ -100,28 +102,74 @@ function collect(nl: Netlist): Shared[] {
   return [...found.values()];
 }
 
+/** A finding with what it was read from: its path's terminals, their objects and its wires' objects. */
+interface Made {
+  finding: Finding;
+  terms: readonly number[];
+  terminals: readonly TerminalInfo[];
+  edges: readonly Edge[];
+}
+
+/**
+ * Findings with paths, kept across netlists by their ends and pairs. A finding says only what the path's terminal
+ * and wire objects say (a terminal object is a cached part wiring's: same part, name, template and lead), so when
+ * the path traced in a new netlist (after an edit) runs over the same objects at the same ids, the finding is the
+ * one made before.
+ */
+const made = new Map<string, Made>();
+const MADE_MAX = 4096;
+
 function build(nl: Netlist, withPaths: boolean): Finding[] {
   return collect(nl).map((s) => {
     const pairs = s.pairs.sort((a, b) => a - b);
-    const pairText = pairs.map((p) => `${p} (${pairColour(p).name})`).join(', ');
-    const p = withPaths ? findPath(nl, s.from, s.to, null) : null;
-    const crossing = p ? firstCrossing(nl, p) : null;
-    const otherText =
-      s.other.kind === 'ksu' ? `the ${s.other.name}'s cross-connect` : `${s.other.name}'s leads`;
-    const ids = [s.owner, s.other].filter((x) => x.kind !== 'ksu').map((x) => x.id);
-    return {
-      code: 'PRIVATE_LEAD_SHARED' as const,
-      severity: 'warning' as const,
-      sets: ids,
-      lines: [],
-      stations: [],
-      message:
-        `${s.owner.name}'s own leads on pair${pairs.length > 1 ? 's' : ''} ${pairText} are paralleled with ${otherText}` +
-        (crossing ? ` (${crossingSentence(crossing)})` : '') +
-        '.',
-      path: p ? toHops(nl, p) : [],
-    } satisfies Finding;
+    if (!withPaths) return finding(nl, s, pairs, null);
+    const p = findPath(nl, s.from, s.to, null);
+    if (!p) return finding(nl, s, pairs, null);
+    const key = `${s.from}|${s.to}|${pairs.join(',')}`;
+    const known = made.get(key);
+    if (known && samePath(nl, p, known)) {
+      made.delete(key);
+      made.set(key, known);
+      return known.finding;
+    }
+    const f = finding(nl, s, pairs, p);
+    if (made.size >= MADE_MAX) made.delete(made.keys().next().value!);
+    made.set(key, {
+      finding: f,
+      terms: p.terms,
+      terminals: p.terms.map((t) => nl.terminals[t]),
+      edges: p.edges.map((e) => nl.edges[e]),
+    });
+    return f;
   });
+}
+
+function samePath(nl: Netlist, p: TerminalPath, m: Made): boolean {
+  if (p.terms.length !== m.terms.length) return false;
+  for (let i = 0; i < p.terms.length; i++)
+    if (p.terms[i] !== m.terms[i] || nl.terminals[p.terms[i]] !== m.terminals[i]) return false;
+  for (let i = 0; i < p.edges.length; i++) if (nl.edges[p.edges[i]] !== m.edges[i]) return false;
+  return true;
+}
+
+function finding(nl: Netlist, s: Shared, pairs: number[], p: TerminalPath | null): Finding {
+  const pairText = pairs.map((p) => `${p} (${pairColour(p).name})`).join(', ');
+  const crossing = p ? firstCrossing(nl, p) : null;
+  const otherText =
+    s.other.kind === 'ksu' ? `the ${s.other.name}'s cross-connect` : `${s.other.name}'s leads`;
+  const ids = [s.owner, s.other].filter((x) => x.kind !== 'ksu').map((x) => x.id);
+  return {
+    code: 'PRIVATE_LEAD_SHARED' as const,
+    severity: 'warning' as const,
+    sets: ids,
+    lines: [],
+    stations: [],
+    message:
+      `${s.owner.name}'s own leads on pair${pairs.length > 1 ? 's' : ''} ${pairText} are paralleled with ${otherText}` +
+      (crossing ? ` (${crossingSentence(crossing)})` : '') +
+      '.',
+    path: p ? toHops(nl, p) : [],
+  } satisfies Finding;
 }
 
 export const privateLeadShared: WiringRule<'PRIVATE_LEAD_SHARED'> = {
