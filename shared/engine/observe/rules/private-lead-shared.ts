@@ -44,7 +44,8 @@ let buffer = new Int32Array(0);
 function collect(nl: Netlist): Shared[] {
   const { terminals, edges, parts } = nl;
   const n = terminals.length;
-  if (buffer.length < 3 * n) buffer = new Int32Array(3 * n);
+  const m = nl.edgeA.length;
+  if (buffer.length < 3 * n + 2 * m) buffer = new Int32Array(3 * n + 2 * m);
   const parent = buffer.subarray(0, n);
   for (let i = 0; i < n; i++) parent[i] = i;
   const find = (x: number): number => {
@@ -52,7 +53,6 @@ function collect(nl: Netlist): Shared[] {
     return x;
   };
   const { edgeA, edgeB, edgeKind } = nl;
-  const m = edgeA.length;
   for (let k = 0; k < m; k++) {
     const kind = edgeKind[k];
     if (kind === KIND_CABLE || kind === KIND_BRIDGE) parent[find(edgeA[k])] = find(edgeB[k]);
@@ -60,8 +60,9 @@ function collect(nl: Netlist): Shared[] {
   // Per conductor (root): the part terminals wired to it, in edge order, as a linked list over the wired edges.
   const first = buffer.subarray(n, 2 * n).fill(-1);
   const last = buffer.subarray(2 * n, 3 * n);
-  const next: number[] = [];
-  const attachedTerm: number[] = [];
+  const next = buffer.subarray(3 * n, 3 * n + m);
+  const attachedTerm = buffer.subarray(3 * n + m, 3 * n + 2 * m);
+  let attached = 0;
   const privateLeads: number[] = [];
   for (let k = 0; k < m; k++) {
     const kind = edgeKind[k];
@@ -71,9 +72,9 @@ function collect(nl: Netlist): Shared[] {
     const aIsPin = terminals[a].pin !== undefined;
     const term = aIsPin ? edgeB[k] : a;
     const r = find(aIsPin ? a : edgeB[k]);
-    const at = attachedTerm.length;
-    attachedTerm.push(term);
-    next.push(-1);
+    const at = attached++;
+    attachedTerm[at] = term;
+    next[at] = -1;
     if (first[r] < 0) first[r] = at;
     else next[last[r]] = at;
     last[r] = at;
