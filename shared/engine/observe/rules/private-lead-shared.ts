@@ -106,6 +106,7 @@ function collect(nl: Netlist): Shared[] {
 /** A finding with what it was read from: its path's terminals, their objects and its wires' objects. */
 interface Made {
   finding: Finding;
+  pairs: readonly number[];
   terms: readonly number[];
   terminals: readonly TerminalInfo[];
   edges: readonly Edge[];
@@ -117,7 +118,7 @@ interface Made {
  * the path traced in a new netlist (after an edit) runs over the same objects at the same ids, the finding is the
  * one made before.
  */
-const made = new Map<string, Made>();
+const made = new Map<number, Made>();
 const MADE_MAX = 4096;
 
 function build(nl: Netlist, withPaths: boolean): Finding[] {
@@ -126,9 +127,9 @@ function build(nl: Netlist, withPaths: boolean): Finding[] {
     if (!withPaths) return finding(nl, s, pairs, null);
     const p = findPath(nl, s.from, s.to, null);
     if (!p) return finding(nl, s, pairs, null);
-    const key = `${s.from}|${s.to}|${pairs.join(',')}`;
+    const key = s.from * nl.terminals.length + s.to;
     const known = made.get(key);
-    if (known && samePath(nl, p, known)) {
+    if (known && sameList(known.pairs, pairs) && samePath(nl, p, known)) {
       made.delete(key);
       made.set(key, known);
       return known.finding;
@@ -137,12 +138,19 @@ function build(nl: Netlist, withPaths: boolean): Finding[] {
     if (made.size >= MADE_MAX) made.delete(made.keys().next().value!);
     made.set(key, {
       finding: f,
+      pairs,
       terms: p.terms,
       terminals: p.terms.map((t) => nl.terminals[t]),
       edges: p.edges.map((e) => nl.edges[e]),
     });
     return f;
   });
+}
+
+function sameList(a: readonly number[], b: readonly number[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
 }
 
 function samePath(nl: Netlist, p: TerminalPath, m: Made): boolean {
