@@ -117,11 +117,12 @@ describe('netlist after an edit', () => {
   it('equals the netlist and evaluation built from scratch', () => {
     fc.assert(
       fc.property(
-        fc.constantFrom(...EXAMPLES),
+        // the examples, and the benchmark's ten sets, whose shared cords give many wiring findings
+        fc.constantFrom(...EXAMPLES, 'ten sets'),
         fc.array(edit, { minLength: 1, maxLength: 6 }),
         fc.nat(),
         (file, edits, n) => {
-          let plan = examplePlan(file);
+          let plan = file === 'ten sets' ? largePlan(3, 10) : examplePlan(file);
           getNetlist(plan);
           for (const e of edits) {
             plan = e(plan);
@@ -180,6 +181,28 @@ function cold(plan: Plan, state: SimState, paths: boolean) {
   getNetlist(fresh, { cached: false });
   return evaluate(fresh, state, { paths });
 }
+
+describe('wiring findings after an edit', () => {
+  it('are the ones made before where their paths run over the same wiring', () => {
+    // guard on the properties above: they would pass as well with nothing kept between netlists
+    const plan = largePlan(3, 10);
+    const wiring = (p: Plan) =>
+      evaluate(p, initialState(p)).findings.filter((f) => f.code === 'PRIVATE_LEAD_SHARED');
+    const before = wiring(plan);
+    // a set that none of them is about (the first set's private leads are on a pair of its own)
+    const s = plan.sets[0];
+    expect(before.filter((f) => f.sets.includes(s.id))).toEqual([]);
+    const edited: Plan = {
+      ...plan,
+      sets: replaceAt(plan.sets, 0, { ...s, leadChanges: [{ kind: 'lift', pair: 24, conductor: 'tip' }] }),
+    };
+    const after = wiring(edited);
+    // the benchmark's sets share cords on their adapters (tests/bench/bench-plans.ts): several such findings
+    expect(before.length).toBeGreaterThan(2);
+    expect(after.length).toBe(before.length);
+    expect(after.filter((f, i) => f === before[i]).length).toBe(before.length);
+  });
+});
 
 describe('evaluations one after another', () => {
   it('equal each state evaluated with nothing kept, after edits too', () => {

@@ -221,6 +221,17 @@ interface Builder {
   elements: ElementInfo[];
   /** Reuse part wirings from earlier builds (see wireCached). */
   cached: boolean;
+  /** Runs of edges and contact edges whose flat copies were made with an earlier wiring (see flatOf). */
+  wireRuns: FlatRun[];
+  contactRuns: FlatRun[];
+}
+
+/** A run of edges pushed from a cached wiring at `at`, with its flat copy, shifted by dt terminals and dc contacts. */
+interface FlatRun {
+  at: number;
+  flat: FlatEdges;
+  dt: number;
+  dc: number;
 }
 
 interface KsuTerminals {
@@ -243,6 +254,8 @@ function newBuilder(cached: boolean): Builder {
     contactEdges: [],
     contacts: [],
     elements: [],
+    wireRuns: [],
+    contactRuns: [],
   };
 }
 
@@ -583,6 +596,9 @@ interface PartWiring {
   contactEdges: Edge[];
   contacts: ContactInfo[];
   elements: ElementInfo[];
+  /** Flat copies of edges and contactEdges. */
+  flat: FlatEdges;
+  contactFlat: FlatEdges;
 }
 
 /**
@@ -636,6 +652,8 @@ function pushWiring(b: Builder, p: PartInfo, w: PartWiring): void {
   const dc = b.contacts.length - w.contactBase;
   // one part has a few hundred of each at most: push(...) copies them in one go
   b.terminals.push(...w.terminals);
+  b.wireRuns.push({ at: b.edges.length, flat: w.flat, dt, dc });
+  b.contactRuns.push({ at: b.contactEdges.length, flat: w.contactFlat, dt, dc });
   if (dt === 0) {
     b.names[p.index] = w.names;
     b.pinIds[p.index] = w.pinIds;
@@ -692,6 +710,8 @@ function wireCached(b: Builder, p: PartInfo, data: object, ownerSet: number, wir
     contactEdges: b.contactEdges.slice(from[2]),
     contacts: b.contacts.slice(from[3]),
     elements: b.elements.slice(from[4]),
+    flat: flatEdges(b.edges, from[1]),
+    contactFlat: flatEdges(b.contactEdges, from[2]),
   };
   lruSet(partWirings, key, wiring, PART_WIRINGS_MAX);
   wiringByObject.set(data, { at, wiring });
@@ -735,11 +755,22 @@ function portExists(plan: Plan, part: PartInfo, port: string): boolean {
  * Each cable's wires by content and by the terminal ids its two ports start at (every port's pins are made
  * together, in pin order): an edit elsewhere leaves both, and the cable's wires are the same objects again.
  */
-const cableWirings = new Map<string, Edge[]>();
+const cableWirings = new Map<string, CableWiring>();
 const CABLE_WIRINGS_MAX = 2048;
-const cableByObject = new WeakMap<object, { at: string; edges: Edge[] }>();
+const cableByObject = new WeakMap<object, { at: string; wiring: CableWiring }>();
 
-function cableEdges(b: Builder, c: Plan['cables'][number], from: PartInfo, to: PartInfo): Edge[] {
+interface CableWiring {
+  edges: Edge[];
+  flat: FlatEdges;
+}
+
+/** The cable's wires, and their flat copy when they are a cached wiring (null: made for this build only). */
+function cableEdges(
+  b: Builder,
+  c: Plan['cables'][number],
+  from: PartInfo,
+  to: PartInfo,
+): { edges: Edge[]; flat: FlatEdges | null } {
   const wire = () =>
     // Pin for pin, with the cable's wiring faults (split, reversed, open) applied: see cable-faults.ts.
     cableWires(c).map((w): Edge =>
@@ -755,15 +786,18 @@ function cableEdges(b: Builder, c: Plan['cables'][number], from: PartInfo, to: P
   const last = [pinTerm(b, from.index, c.from.port, PIN_COUNT), pinTerm(b, to.index, c.to.port, PIN_COUNT)];
   // the ports' pins in one run of ids (allPins), so the first pin's ids say where all of them are
   const runs = last[0] - first[0] === PIN_COUNT - 1 && last[1] - first[1] === PIN_COUNT - 1;
-  if (!b.cached || !runs) return wire();
+  if (!b.cached || !runs) return { edges: wire(), flat: null };
   const at = `${first[0]}|${first[1]}`;
   const same = cableByObject.get(c);
-  if (same?.at === at) return same.edges;
+  if (same?.at === at) return same.wiring;
   const key = `${at}|${contentKey(c)}`;
-  let edges = lruGet(cableWirings, key);
-  if (!edges) lruSet(cableWirings, key, (edges = wire()), CABLE_WIRINGS_MAX);
-  cableByObject.set(c, { at, edges });
-  return edges;
+  let wiring = lruGet(cableWirings, key);
+  if (!wiring) {
+    const edges = wire();
+    lruSet(cableWirings, key, (wiring = { edges, flat: flatEdges(edges, 0) }), CABLE_WIRINGS_MAX);
+  }
+  cableByObject.set(c, { at, wiring });
+  return wiring;
 }
 
 /** Cables: pin for pin between two existing ports (a cable to a missing part or port carries nothing). */
@@ -772,7 +806,9 @@ function wireCables(b: Builder, plan: Plan): void {
     const from = b.partById.get(c.from.part);
     const to = b.partById.get(c.to.part);
     if (!from || !to || !portExists(plan, from, c.from.port) || !portExists(plan, to, c.to.port)) continue;
-    b.edges.push(...cableEdges(b, c, from, to));
+    const { edges, flat } = cableEdges(b, c, from, to);
+    if (flat) b.wireRuns.push({ at: b.edges.length, flat, dt: 0, dc: 0 });
+    b.edges.push(...edges);
   }
 }
 
@@ -786,23 +822,69 @@ const KIND_CODE: Record<EdgeKind, number> = {
   contact: KIND_CONTACT,
 };
 
-/** One pass over the edge objects; every later loop over all edges reads these. */
-function flatEdges(edges: readonly Edge[]): FlatEdges {
-  const m = edges.length;
-  const flat = {
-    edgeA: new Int32Array(m),
-    edgeB: new Int32Array(m),
-    edgeKind: new Uint8Array(m),
-    edgeContact: new Int32Array(m),
-  };
-  for (let i = 0; i < m; i++) {
+const newFlat = (m: number): FlatEdges => ({
+  edgeA: new Int32Array(m),
+  edgeB: new Int32Array(m),
+  edgeKind: new Uint8Array(m),
+  edgeContact: new Int32Array(m),
+});
+
+/** edges[from..to) into `out` from `at` on, read off the edge objects. */
+function flatInto(out: FlatEdges, at: number, edges: readonly Edge[], from: number, to: number): void {
+  for (let i = from; i < to; i++) {
     const e = edges[i];
-    flat.edgeA[i] = e.a;
-    flat.edgeB[i] = e.b;
-    flat.edgeKind[i] = KIND_CODE[e.kind];
-    flat.edgeContact[i] = e.contact ?? -1;
+    const k = at + i - from;
+    out.edgeA[k] = e.a;
+    out.edgeB[k] = e.b;
+    out.edgeKind[k] = KIND_CODE[e.kind];
+    out.edgeContact[k] = e.contact ?? -1;
   }
+}
+
+/** The edges from `from` on, as flat arrays. */
+function flatEdges(edges: readonly Edge[], from: number): FlatEdges {
+  const flat = newFlat(edges.length - from);
+  flatInto(flat, 0, edges, from, edges.length);
   return flat;
+}
+
+/** A cached wiring's flat copy into `out` at `at`, shifted as its edges were (shiftEdge). */
+function copyRun(out: FlatEdges, at: number, run: FlatRun): void {
+  const { flat, dt, dc } = run;
+  out.edgeKind.set(flat.edgeKind, at);
+  if (dt === 0 && dc === 0) {
+    out.edgeA.set(flat.edgeA, at);
+    out.edgeB.set(flat.edgeB, at);
+    out.edgeContact.set(flat.edgeContact, at);
+    return;
+  }
+  for (let i = 0; i < flat.edgeA.length; i++) {
+    out.edgeA[at + i] = flat.edgeA[i] + dt;
+    out.edgeB[at + i] = flat.edgeB[i] + dt;
+    const c = flat.edgeContact[i];
+    out.edgeContact[at + i] = c < 0 ? c : c + dc;
+  }
+}
+
+/**
+ * The flat arrays of all edges (wires, then contacts): one pass over the edge objects, except for runs pushed from
+ * cached wirings, which are copied from their flat copies. Every later loop over all edges reads these.
+ */
+function flatOf(b: Builder): FlatEdges {
+  const wires = b.edges.length;
+  const out = newFlat(wires + b.contactEdges.length);
+  const fill = (base: number, edges: readonly Edge[], runs: readonly FlatRun[]) => {
+    let done = 0;
+    for (const run of runs) {
+      flatInto(out, base + done, edges, done, run.at);
+      copyRun(out, base + run.at, run);
+      done = run.at + run.flat.edgeA.length;
+    }
+    flatInto(out, base + done, edges, done, edges.length);
+  };
+  fill(0, b.edges, b.wireRuns);
+  fill(wires, b.contactEdges, b.contactRuns);
+  return out;
 }
 
 /** Wires never change with the state, so their connectivity is solved once: terminal → static root. */
@@ -904,7 +986,7 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
   wireParts(b, plan, sets, addOnParts, adapterParts);
   wireCables(b, plan);
   const edges = b.edges.concat(b.contactEdges);
-  const flat = flatEdges(edges);
+  const flat = flatOf(b);
   const staticRoot = staticComponents(b.terminals.length, flat, b.edges.length);
   const { dense, denseCount, hot } = denseComponents(b, ksu, staticRoot);
   return {

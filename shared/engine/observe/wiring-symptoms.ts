@@ -11,6 +11,7 @@ import type { NetFacts } from '../model/facts';
 import { terminalId, type ElementInfo, type Netlist } from '../model/netlist';
 import { splitPins, wiringFaultWords } from '../model/cable-faults';
 import type { Evaluation } from './evaluation.types';
+import type { PartTemplate } from '../templates/template.types';
 
 interface Polarised {
   element: ElementInfo;
@@ -31,14 +32,25 @@ interface WiringLayout {
 
 const layouts = new WeakMap<Netlist, WiringLayout>();
 
+/** Templates with a polarised element (most have none, and their elements need no look-up). */
+const polarisedTemplates = new WeakMap<PartTemplate, boolean>();
+
+function hasPolarised(tpl: PartTemplate): boolean {
+  let has = polarisedTemplates.get(tpl);
+  if (has === undefined) polarisedTemplates.set(tpl, (has = tpl.elements.some((x) => !!x.polarised)));
+  return has;
+}
+
 function layoutOf(nl: Netlist): WiringLayout {
   let layout = layouts.get(nl);
   if (layout) return layout;
   const polarised: Polarised[] = [];
   for (const e of nl.elements) {
     if (e.owner < 0) continue;
+    const tpl = nl.parts[e.part].template;
+    if (!tpl || !hasPolarised(tpl)) continue;
     const [a, b] = [nl.terminals[e.a].name, nl.terminals[e.b].name];
-    const spec = nl.parts[e.part].template?.elements.find((x) => x.kind === e.kind && x.a === a && x.b === b);
+    const spec = tpl.elements.find((x) => x.kind === e.kind && x.a === a && x.b === b);
     if (spec?.polarised) polarised.push({ element: e, fails: spec.polarised.fails });
   }
   const splits: Split[] = [];

@@ -8,11 +8,13 @@ import {
   KIND_CABLE,
   KIND_CROSS_CONNECT,
   KIND_LEAD,
+  type Edge,
   type Netlist,
   type PartInfo,
+  type TerminalInfo,
 } from '../../model/netlist';
 import type { Finding } from '../evaluation.types';
-import { findPath, firstCrossing, crossingSentence, toHops } from '../paths';
+import { findPath, firstCrossing, crossingSentence, toHops, type TerminalPath } from '../paths';
 import type { WiringRule } from '../rule.types';
 
 interface Shared {
@@ -42,7 +44,8 @@ let buffer = new Int32Array(0);
 function collect(nl: Netlist): Shared[] {
   const { terminals, edges, parts } = nl;
   const n = terminals.length;
-  if (buffer.length < 3 * n) buffer = new Int32Array(3 * n);
+  const m = nl.edgeA.length;
+  if (buffer.length < 3 * n + 2 * m) buffer = new Int32Array(3 * n + 2 * m);
   const parent = buffer.subarray(0, n);
   for (let i = 0; i < n; i++) parent[i] = i;
   const find = (x: number): number => {
@@ -50,7 +53,6 @@ function collect(nl: Netlist): Shared[] {
     return x;
   };
   const { edgeA, edgeB, edgeKind } = nl;
-  const m = edgeA.length;
   for (let k = 0; k < m; k++) {
     const kind = edgeKind[k];
     if (kind === KIND_CABLE || kind === KIND_BRIDGE) parent[find(edgeA[k])] = find(edgeB[k]);
@@ -58,8 +60,9 @@ function collect(nl: Netlist): Shared[] {
   // Per conductor (root): the part terminals wired to it, in edge order, as a linked list over the wired edges.
   const first = buffer.subarray(n, 2 * n).fill(-1);
   const last = buffer.subarray(2 * n, 3 * n);
-  const next: number[] = [];
-  const attachedTerm: number[] = [];
+  const next = buffer.subarray(3 * n, 3 * n + m);
+  const attachedTerm = buffer.subarray(3 * n + m, 3 * n + 2 * m);
+  let attached = 0;
   const privateLeads: number[] = [];
   for (let k = 0; k < m; k++) {
     const kind = edgeKind[k];
@@ -69,9 +72,9 @@ function collect(nl: Netlist): Shared[] {
     const aIsPin = terminals[a].pin !== undefined;
     const term = aIsPin ? edgeB[k] : a;
     const r = find(aIsPin ? a : edgeB[k]);
-    const at = attachedTerm.length;
-    attachedTerm.push(term);
-    next.push(-1);
+    const at = attached++;
+    attachedTerm[at] = term;
+    next[at] = -1;
     if (first[r] < 0) first[r] = at;
     else next[last[r]] = at;
     last[r] = at;
@@ -100,28 +103,82 @@ function collect(nl: Netlist): Shared[] {
   return [...found.values()];
 }
 
+/** A finding with what it was read from: its path's terminals, their objects and its wires' objects. */
+interface Made {
+  finding: Finding;
+  pairs: readonly number[];
+  terms: readonly number[];
+  terminals: readonly TerminalInfo[];
+  edges: readonly Edge[];
+}
+
+/**
+ * Findings with paths, kept across netlists by their ends and pairs. A finding says only what the path's terminal
+ * and wire objects say (a terminal object is a cached part wiring's: same part, name, template and lead), so when
+ * the path traced in a new netlist (after an edit) runs over the same objects at the same ids, the finding is the
+ * one made before.
+ */
+const made = new Map<number, Made>();
+const MADE_MAX = 4096;
+
 function build(nl: Netlist, withPaths: boolean): Finding[] {
   return collect(nl).map((s) => {
     const pairs = s.pairs.sort((a, b) => a - b);
-    const pairText = pairs.map((p) => `${p} (${pairColour(p).name})`).join(', ');
-    const p = withPaths ? findPath(nl, s.from, s.to, null) : null;
-    const crossing = p ? firstCrossing(nl, p) : null;
-    const otherText =
-      s.other.kind === 'ksu' ? `the ${s.other.name}'s cross-connect` : `${s.other.name}'s leads`;
-    const ids = [s.owner, s.other].filter((x) => x.kind !== 'ksu').map((x) => x.id);
-    return {
-      code: 'PRIVATE_LEAD_SHARED' as const,
-      severity: 'warning' as const,
-      sets: ids,
-      lines: [],
-      stations: [],
-      message:
-        `${s.owner.name}'s own leads on pair${pairs.length > 1 ? 's' : ''} ${pairText} are paralleled with ${otherText}` +
-        (crossing ? ` (${crossingSentence(crossing)})` : '') +
-        '.',
-      path: p ? toHops(nl, p) : [],
-    } satisfies Finding;
+    if (!withPaths) return finding(nl, s, pairs, null);
+    const p = findPath(nl, s.from, s.to, null);
+    if (!p) return finding(nl, s, pairs, null);
+    const key = s.from * nl.terminals.length + s.to;
+    const known = made.get(key);
+    if (known && sameList(known.pairs, pairs) && samePath(nl, p, known)) {
+      made.delete(key);
+      made.set(key, known);
+      return known.finding;
+    }
+    const f = finding(nl, s, pairs, p);
+    if (made.size >= MADE_MAX) made.delete(made.keys().next().value!);
+    made.set(key, {
+      finding: f,
+      pairs,
+      terms: p.terms,
+      terminals: p.terms.map((t) => nl.terminals[t]),
+      edges: p.edges.map((e) => nl.edges[e]),
+    });
+    return f;
   });
+}
+
+function sameList(a: readonly number[], b: readonly number[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}
+
+function samePath(nl: Netlist, p: TerminalPath, m: Made): boolean {
+  if (p.terms.length !== m.terms.length) return false;
+  for (let i = 0; i < p.terms.length; i++)
+    if (p.terms[i] !== m.terms[i] || nl.terminals[p.terms[i]] !== m.terminals[i]) return false;
+  for (let i = 0; i < p.edges.length; i++) if (nl.edges[p.edges[i]] !== m.edges[i]) return false;
+  return true;
+}
+
+function finding(nl: Netlist, s: Shared, pairs: number[], p: TerminalPath | null): Finding {
+  const pairText = pairs.map((p) => `${p} (${pairColour(p).name})`).join(', ');
+  const crossing = p ? firstCrossing(nl, p) : null;
+  const otherText =
+    s.other.kind === 'ksu' ? `the ${s.other.name}'s cross-connect` : `${s.other.name}'s leads`;
+  const ids = [s.owner, s.other].filter((x) => x.kind !== 'ksu').map((x) => x.id);
+  return {
+    code: 'PRIVATE_LEAD_SHARED' as const,
+    severity: 'warning' as const,
+    sets: ids,
+    lines: [],
+    stations: [],
+    message:
+      `${s.owner.name}'s own leads on pair${pairs.length > 1 ? 's' : ''} ${pairText} are paralleled with ${otherText}` +
+      (crossing ? ` (${crossingSentence(crossing)})` : '') +
+      '.',
+    path: p ? toHops(nl, p) : [],
+  } satisfies Finding;
 }
 
 export const privateLeadShared: WiringRule<'PRIVATE_LEAD_SHARED'> = {
