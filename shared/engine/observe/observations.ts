@@ -225,12 +225,22 @@ const LOAD_LAMP = 3;
 /** Per element: what kind of load the observations read it as (none: a network, or no owner), its ends' dense ids. */
 const loadsOf = perNetlist((nl) => {
   const code = { buzzer: LOAD_BUZZER, ringer: LOAD_RINGER, lamp: LOAD_LAMP, network: LOAD_NONE };
-  return {
-    kind: Uint8Array.from(nl.elements, (e) => (e.owner < 0 ? LOAD_NONE : code[e.kind])),
-    a: Int32Array.from(nl.elements, (e) => nl.dense[e.a]),
-    b: Int32Array.from(nl.elements, (e) => nl.dense[e.b]),
-    owner: Int32Array.from(nl.elements, (e) => e.owner),
+  const n = nl.elements.length;
+  const out = {
+    kind: new Uint8Array(n),
+    a: new Int32Array(n),
+    b: new Int32Array(n),
+    owner: new Int32Array(n),
   };
+  // One plain pass (typed arrays' from() with a mapping function is several times slower on a new netlist).
+  for (let i = 0; i < n; i++) {
+    const e = nl.elements[i];
+    out.kind[i] = e.owner < 0 ? LOAD_NONE : code[e.kind];
+    out.a[i] = nl.dense[e.a];
+    out.b[i] = nl.dense[e.b];
+    out.owner[i] = e.owner;
+  }
+  return out;
 });
 
 function observeLoads(
