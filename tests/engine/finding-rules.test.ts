@@ -39,6 +39,8 @@ describe('finding rule registry', () => {
       expect(rule.fires.position || rule.fires.event, rule.code).toBe(true);
       // An event rule without eventMayAdd would make the sweep ask it about every KSU event.
       if (rule.fires.event) expect(typeof rule.eventMayAdd, rule.code).toBe('function');
+      // A state rule without possibleIn makes every clean proof fail (search/README.md, "Clean proof").
+      expect(typeof rule.possibleIn, rule.code).toBe('function');
     }
   });
 

@@ -13,7 +13,6 @@ import {
   evaluate,
   getNetlist,
   initialState,
-  type LeadChange,
   type Netlist,
   type Plan,
   type SimAction,
@@ -22,24 +21,12 @@ import {
 import { getTemplate } from '../../shared/engine/templates/part-templates';
 import { examplePlan } from '../support/example-plans';
 import { busyState, largePlan } from '../bench/bench-plans';
+import { leadChange } from '../support/random-plans';
 
 const EXAMPLES = ['demo-plan.json', 'intercom.json', 'six-and-ten.json', 'two-set.json'];
 const SET_TEMPLATES = ['single-line', 'six-key', 'six-key-hf', 'ten-key'];
 
 type Edit = (plan: Plan) => Plan;
-
-const leadChange: fc.Arbitrary<LeadChange> = fc.oneof(
-  fc.record({
-    kind: fc.constant('lift' as const),
-    pair: fc.integer({ min: 1, max: 25 }),
-    conductor: fc.constantFrom('tip' as const, 'ring' as const, 'both' as const),
-  }),
-  fc.record({
-    kind: fc.constant('move' as const),
-    pair: fc.integer({ min: 1, max: 25 }),
-    toPair: fc.integer({ min: 1, max: 25 }),
-  }),
-);
 
 const pick = <T>(xs: readonly T[], n: number): T | undefined => (xs.length ? xs[n % xs.length] : undefined);
 const replaceAt = <T>(xs: readonly T[], i: number, x: T): T[] => xs.map((y, j) => (j === i ? x : y));

@@ -1,4 +1,5 @@
 /** What a finding rule is and the facts of one state it reads (the registry is rules/index.ts). */
+import type { CoarseNets } from '../model/coarse-nets';
 import type { NetFacts } from '../model/facts';
 import type { Netlist } from '../model/netlist';
 import type { Mech } from '../model/nets';
@@ -29,6 +30,14 @@ export interface FindingFacts {
   eventsOnly: boolean;
 }
 
+/** What a clean proof knows of every state at once (search/clean-proof.ts). */
+export interface CoarseFacts {
+  /** Nets that the nets of every combination of set positions refine. */
+  coarse: CoarseNets;
+  /** The KSU's line states and intercom call in each event the sweep opens with (idle first). */
+  events: readonly Pick<SimState, 'lines' | 'intercom'>[];
+}
+
 /** A finding kind that depends on the state: the sets' positions, a KSU event, or both. */
 export interface StateRule<C extends FindingCode = FindingCode> {
   kind: 'state';
@@ -48,6 +57,11 @@ export interface StateRule<C extends FindingCode = FindingCode> {
   ) => boolean;
   /** Listed with the other findings about one set: merged by set, then line, then registry order. */
   bySet?: boolean;
+  /**
+   * False only when no state whose nets refine the coarse ones can raise it, under any of the events (the clean
+   * proof). A rule without it can always fire as far as the proof knows.
+   */
+  possibleIn?: (c: CoarseFacts) => boolean;
   /** Appends its findings; with facts.eventsOnly, only those the KSU event raises. */
   find(facts: FindingFacts, out: Finding[]): void;
 }

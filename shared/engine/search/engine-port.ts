@@ -33,3 +33,7 @@ export type { Plan, LeadChange, CrossConnect, KeySet, AddOn } from '../document/
 export type { SimState, SimAction, SetState } from '../sim/state.schema';
 export type { Evaluation, Finding, FindingCode, Hop } from '../observe/evaluation.types';
 export { getNetlist, type Netlist } from '../model/netlist';
+export { RULES } from '../observe/rules/index';
+export { FINDING_TITLES } from '../observe/evaluation.types';
+export type { StateRule } from '../observe/rule.types';
+export { buildCoarseNets, type CoarsePosition } from '../model/coarse-nets';

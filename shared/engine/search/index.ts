@@ -4,6 +4,7 @@ export {
   planSweep,
   setMoves,
   sweepEvents,
+  eventActions,
   stationPortOfSets,
   EXHAUSTIVE_STATE_LIMIT,
   type SweepOptions,
@@ -23,6 +24,7 @@ export {
 } from './cure';
 export { checkRequired, linesOfSet, type RequiredFailure } from './required';
 export { planSoundSweep, interchangeableSets, SOUND_STATE_LIMIT } from './sound-sweep';
+export { proveClean, type CleanProof } from './clean-proof';
 export {
   cureOptimal,
   type OptimalCureOptions,

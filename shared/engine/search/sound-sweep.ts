@@ -5,6 +5,7 @@
  * visited and each finding stands for its images under those trades. Argument: ./README.md ("Sound sweep").
  */
 import { getNetlist, type Plan } from './engine-port';
+import { proveClean } from './clean-proof';
 import { planSweep, sweepEvents, type Planned, type SweepOptions } from './sweep';
 
 /** Largest number of states (mechanical combinations × KSU events) the default sweep visits. */
@@ -133,6 +134,20 @@ export function planSoundSweep(plan: Plan, opts: Pick<SweepOptions, 'events'> = 
   };
 
   if (combinations * events > SOUND_STATE_LIMIT) {
+    // No state can show a state rule's finding: the idle state alone gives the wiring findings, complete.
+    const proof = proveClean(plan, opts);
+    if (proof.proven) {
+      return {
+        ...exhaustive,
+        events: exhaustive.events.slice(0, 1),
+        forEach: (visit) => void visit(new Array<number>(n).fill(0)),
+        combinations: 1,
+        withoutEvents: 0,
+        total: 1,
+        reduction,
+        cleanProof: proof.words,
+      };
+    }
     const reduced = planSweep(plan, { ...opts, strategy: 'reduced' });
     return {
       ...reduced,
@@ -141,7 +156,7 @@ export function planSoundSweep(plan: Plan, opts: Pick<SweepOptions, 'events'> = 
         `Too large for a complete sweep: ${combinations.toLocaleString('en')} combinations of set positions × ${events} ` +
         `KSU events (after trading interchangeable sets) is more than ${SOUND_STATE_LIMIT.toLocaleString('en')} ` +
         'states. Shown: each set alone in every position with every event, and every two sets on one station port ' +
-        'together; faults needing other sets together may be missing.',
+        `together; faults needing other sets together may be missing. ${proof.reason}`,
     };
   }
 

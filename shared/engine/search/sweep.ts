@@ -82,6 +82,11 @@ export interface SweepResult {
   incompleteReason?: string;
   /** The exact reductions the default sweep used (absent for the exhaustive and reduced strategies). */
   reduction?: SweepReduction;
+  /**
+   * When a plan too large for a complete sweep was proved to show no state's finding (search/clean-proof.ts): why,
+   * in plain words. The sweep is then complete: its findings are the wiring findings, from the idle state alone.
+   */
+  cleanProof?: string;
 }
 
 /** One set's mechanical position. */
@@ -296,6 +301,8 @@ export interface Planned {
   reduction?: SweepReduction;
   /** Set when the plan is too large for a complete sweep. */
   incompleteReason?: string;
+  /** Set when no state can show a state rule's finding (the clean proof's words): only the idle state is visited. */
+  cleanProof?: string;
   moves: SetMove[][];
   events: SweepEvent[];
   maxActive: number;
@@ -564,5 +571,6 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
         ? `Stopped after ${visited} of ${planTotal} states.`
         : `Visited ${visited} of ${planTotal} states.`);
   if (planned.reduction) result.reduction = planned.reduction;
+  if (planned.cleanProof && complete) result.cleanProof = planned.cleanProof;
   return result;
 }

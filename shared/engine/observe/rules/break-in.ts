@@ -1,4 +1,5 @@
 /** A set hearing a line it did not select while another set is on that line's call through its own key. */
+import { mayHearUnselected } from '../../model/coarse-nets';
 import type { SetInfo } from '../../model/netlist';
 import type { FarPhase } from '../../sim/state.schema';
 import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
@@ -13,6 +14,8 @@ export const breakIn: StateRule<'BREAK_IN'> = {
   code: 'BREAK_IN',
   fires: { position: true, event: false },
   bySet: true,
+  // The set breaking in hears a line it has not selected (the sets on the call select it): that is possible first.
+  possibleIn: ({ coarse }) => mayHearUnselected(coarse),
   find(f, out) {
     const { nl, facts, finder, active, selected } = f;
     const nSets = nl.sets.length;

@@ -1,4 +1,5 @@
 /** An intercom call to one station buzzing other sets than the ones assigned to it. */
+import { mayBuzz } from '../../model/coarse-nets';
 import { pairColour } from '../../document/cable-code';
 import type { Netlist, SetInfo } from '../../model/netlist';
 import type { TerminalPath } from '../paths';
@@ -34,6 +35,16 @@ export const intercomSoundsSeveral: StateRule<'INTERCOM_SOUNDS_SEVERAL'> = {
   code: 'INTERCOM_SOUNDS_SEVERAL',
   fires: { position: false, event: true },
   eventMayAdd: (state) => !!state.intercom.calling,
+  // The sets sounding in a state are among those whose buzzer may be across the called station's output.
+  possibleIn({ coarse, events }) {
+    const { nl } = coarse;
+    return nl.stations.some((station, k) => {
+      if (!events.some((e) => e.intercom.calling === station.id)) return false;
+      const sounding = mayBuzz(coarse, k).map((s) => nl.sets[s]);
+      const extra = sounding.filter((s) => s.station !== station.id);
+      return extra.length > 0 && (sounding.length > 1 || extra.some((s) => s.station !== undefined));
+    });
+  },
   find(f, out) {
     const { nl, finder } = f;
     const calling = f.state.intercom.calling;

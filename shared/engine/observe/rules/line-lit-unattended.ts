@@ -2,6 +2,7 @@
  * A line lit with nobody on it: its A-lead grounded though no set in use selected it (the sets' positions decide),
  * or put on hold by a set that had not selected it (a KSU event: the hold bridge lights it).
  */
+import { fixedNet, selectedIn } from '../../model/coarse-nets';
 import { describeVia, hopsOf, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
 
@@ -10,6 +11,21 @@ export const lineLitUnattended: StateRule<'LINE_LIT_UNATTENDED'> = {
   code: 'LINE_LIT_UNATTENDED',
   fires: { position: true, event: true },
   eventMayAdd: (state) => state.lines.some((ls) => ls.circuit === 'held' && !!ls.heldWithoutSelection),
+  possibleIn({ coarse, events }) {
+    // Held aside: the events' line states are the same whatever the sets do.
+    if (events.some((e) => e.lines.some((ls) => ls.circuit === 'held' && !!ls.heldWithoutSelection)))
+      return true;
+    // Lit by its A-lead with nobody on the line: every set is in a position that does not attend the line, so the
+    // state refines the coarse nets without the attending positions. Not absence of a join, but its presence there.
+    const { nl } = coarse;
+    return nl.lines.some((line) => {
+      const root = coarse.without((s, p) => {
+        const pos = coarse.positions[s][p];
+        return (pos.offHook || pos.handsFreeOn) && selectedIn(coarse, s, p).includes(line.number);
+      });
+      return fixedNet(coarse, line.a, root) === fixedNet(coarse, nl.gnd, root);
+    });
+  },
   find(f, out) {
     const { nl, mech, finder, active, selected } = f;
     const nSets = nl.sets.length;

@@ -4,6 +4,7 @@
  * with no set on it, the other line looks busy, its lamp supply is shorted or lights the wrong lamps
  * (common practice, no published source).
  */
+import { fixedNet } from '../../model/coarse-nets';
 import type { Conductor } from '../../document/plan.schema';
 import { describeVia, hopsOf, latchedOn, pathIn } from '../rule-helpers';
 import type { FindingFacts, StateRule } from '../rule.types';
@@ -41,6 +42,18 @@ export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
   kind: 'state',
   code: 'LINE_ON_CONTROL_LEAD',
   fires: { position: true, event: false },
+  // A conductor on ground or on another line's A-lead or lamp lead in a state is on its coarse net.
+  possibleIn({ coarse }) {
+    const { nl } = coarse;
+    const gnd = fixedNet(coarse, nl.gnd);
+    const a = nl.lines.map((l) => fixedNet(coarse, l.a));
+    const lamp = nl.lines.map((l) => fixedNet(coarse, l.l));
+    return nl.lines.some((l, i) =>
+      [fixedNet(coarse, l.t), fixedNet(coarse, l.r)].some(
+        (r) => r === gnd || nl.lines.some((_, j) => j !== i && (r === a[j] || r === lamp[j])),
+      ),
+    );
+  },
   find(f, out) {
     const { nl, facts, finder } = f;
     const { roots, rootT, rootR, rootL, gnd } = facts;

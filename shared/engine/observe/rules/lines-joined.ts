@@ -1,4 +1,5 @@
 /** Two lines on one tip or ring net: one finding per group of joined lines, with the path between their tips. */
+import { fixedNet } from '../../model/coarse-nets';
 import { listWords } from '../../document/words';
 import { hopsOf, joinSentence, latchedOn, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
@@ -7,6 +8,12 @@ export const linesJoined: StateRule<'LINES_JOINED'> = {
   kind: 'state',
   code: 'LINES_JOINED',
   fires: { position: true, event: false },
+  // Lines joined in a state are on one coarse tip or ring net.
+  possibleIn({ coarse }) {
+    const t = coarse.nl.lines.map((l) => fixedNet(coarse, l.t));
+    const r = coarse.nl.lines.map((l) => fixedNet(coarse, l.r));
+    return t.some((x, i) => t.some((y, j) => j !== i && (x === y || r[i] === r[j])));
+  },
   find(f, out) {
     const { nl, facts, finder } = f;
     const seen = new Set<number>();

@@ -2,6 +2,7 @@
  * A ringing line whose talk pair is joined to another line's: the ringing current rings that line's ringers and its
  * line circuit sees ringing, so its lamps flash though nobody calls it (common practice, no published source).
  */
+import { fixedNet } from '../../model/coarse-nets';
 import { listWords } from '../../document/words';
 import { describeVia, hopsOf, latchedOn, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
@@ -21,6 +22,21 @@ export const ringingOverJoinedLines: StateRule<'RINGING_OVER_JOINED_LINES'> = {
         if (i !== j && (facts.rootT[i] === facts.rootT[j] || facts.rootR[i] === facts.rootT[j])) return true;
     }
     return false;
+  },
+  // Both talk conductors of the ringing line on another line's, straight or crossed, on the coarse nets.
+  possibleIn({ coarse, events }) {
+    const { nl } = coarse;
+    const t = nl.lines.map((l) => fixedNet(coarse, l.t));
+    const r = nl.lines.map((l) => fixedNet(coarse, l.r));
+    return events.some((e) =>
+      nl.lines.some(
+        (lj, j) =>
+          e.lines.some((ls) => ls.ringing && ls.line === lj.number) &&
+          nl.lines.some(
+            (_, i) => i !== j && ((t[i] === t[j] && r[i] === r[j]) || (t[i] === r[j] && r[i] === t[j])),
+          ),
+      ),
+    );
   },
   find(f, out) {
     const { nl, facts, finder, lineStates } = f;

@@ -1,4 +1,5 @@
 /** A set's speech network across more than one line at once. */
+import { mayHear } from '../../model/coarse-nets';
 import { listWords } from '../../document/words';
 import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
@@ -9,6 +10,9 @@ export const setHearsSeveralLines: StateRule<'SET_HEARS_SEVERAL_LINES'> = {
   code: 'SET_HEARS_SEVERAL_LINES',
   fires: { position: true, event: false },
   bySet: true,
+  // Two lines heard in a state are two lines heard in one joint position of the sets placing the networks.
+  possibleIn: ({ coarse }) =>
+    coarse.nl.sets.some((s) => mayHear(coarse, s.index, (heard) => heard.length > 1)),
   find(f, out) {
     const { nl, facts, finder } = f;
     const nLines = nl.lines.length;

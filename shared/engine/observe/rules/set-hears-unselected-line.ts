@@ -1,4 +1,5 @@
 /** A set's speech network on a line its keys did not select. */
+import { mayHearUnselected } from '../../model/coarse-nets';
 import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
 import type { Finding } from '../evaluation.types';
@@ -9,6 +10,7 @@ export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
   code: 'SET_HEARS_UNSELECTED_LINE',
   fires: { position: true, event: false },
   bySet: true,
+  possibleIn: ({ coarse }) => mayHearUnselected(coarse),
   find(f, out) {
     const { nl, mech, facts, finder } = f;
     const nLines = nl.lines.length;
