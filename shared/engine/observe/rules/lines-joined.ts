@@ -3,6 +3,7 @@ import { fixedNet } from '../../model/coarse-nets';
 import { listWords } from '../../document/words';
 import { hopsOf, joinSentence, latchedOn, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
+import { listId, memoFinding } from '../finding-memo';
 
 export const linesJoined: StateRule<'LINES_JOINED'> = {
   kind: 'state',
@@ -29,18 +30,24 @@ export const linesJoined: StateRule<'LINES_JOINED'> = {
         sameTip ? nl.lines[i].t : nl.lines[i].r,
         sameTip ? nl.lines[j].t : nl.lines[j].r,
       );
-      const how =
-        joinSentence(nl, p) ??
-        (involved.length ? ` through ${involved.map((s) => s.name).join(' and ')}` : '');
-      out.push({
-        code: 'LINES_JOINED',
-        severity: 'fault',
-        sets: involved.map((s) => s.id),
-        lines: group,
-        stations: [],
-        message: `Lines ${listWords(group)} are joined${how}.`,
-        path: hopsOf(finder, p),
-      });
+      // what the finding says: the lines, the sets latched on them, the path
+      const key = listId(nl, [...group, -1, ...involved.map((s) => s.index)]);
+      out.push(
+        memoFinding(nl, 'LINES_JOINED', key, p, () => {
+          const how =
+            joinSentence(nl, p) ??
+            (involved.length ? ` through ${involved.map((s) => s.name).join(' and ')}` : '');
+          return {
+            code: 'LINES_JOINED',
+            severity: 'fault',
+            sets: involved.map((s) => s.id),
+            lines: group,
+            stations: [],
+            message: `Lines ${listWords(group)} are joined${how}.`,
+            path: hopsOf(finder, p),
+          };
+        }),
+      );
     });
   },
 };
