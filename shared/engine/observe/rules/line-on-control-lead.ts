@@ -34,6 +34,10 @@ function via(f: FindingFacts, p: TerminalPath): string {
 
 /** Per target: line i's landings on it (the bits above), kept between calls (evaluation is synchronous). */
 let landingBuffer = new Uint8Array(0);
+/** Per line index: the root of its A-lead; per root: `stamp` when some line's A-lead or lamp lead is on it. */
+let rootABuffer = new Int32Array(0);
+let controlMarks = new Int32Array(0);
+let stamp = 0;
 
 /** The finding for line i's landings `bits` on `target`, made once for what it says (finding-memo.ts). */
 function landingFinding(f: FindingFacts, i: number, target: number, bits: number): Finding {
@@ -98,8 +102,23 @@ export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
     const { roots, rootT, rootR, rootL, gnd } = facts;
     const d = nl.dense;
     const nLines = nl.lines.length;
-    if (landingBuffer.length < nLines + 1) landingBuffer = new Uint8Array(nLines + 1);
+    if (landingBuffer.length < nLines + 1) {
+      landingBuffer = new Uint8Array(nLines + 1);
+      rootABuffer = new Int32Array(nLines + 1);
+    }
+    if (controlMarks.length < roots.length) controlMarks = new Int32Array(roots.length);
+    if (++stamp >= 0x7fffffff) {
+      controlMarks.fill(0);
+      stamp = 1;
+    }
     const landings = landingBuffer;
+    const rootA = rootABuffer;
+    const marks = controlMarks;
+    for (let j = 0; j < nLines; j++) {
+      const ra = (rootA[j] = roots[d[nl.lines[j].a]]);
+      marks[ra] = stamp;
+      marks[rootL[j]] = stamp;
+    }
     for (let i = 0; i < nLines; i++) {
       // Hot path (every state of a sweep): nothing allocated until a conductor lands somewhere.
       let any = false;
@@ -113,9 +132,10 @@ export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
           landings[nLines] |= 1 << (2 * c);
           continue;
         }
+        if (marks[r] !== stamp) continue; // on no line's A-lead or lamp lead
         for (let j = 0; j < nLines; j++) {
           if (j === i) continue;
-          const onA = r === roots[d[nl.lines[j].a]];
+          const onA = r === rootA[j];
           const onL = r === rootL[j];
           if (!onA && !onL) continue;
           if (!any) landings.fill(0, 0, nLines + 1);

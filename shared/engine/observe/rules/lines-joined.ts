@@ -17,13 +17,15 @@ export const linesJoined: StateRule<'LINES_JOINED'> = {
   },
   find(f, out) {
     const { nl, facts, finder } = f;
-    const seen = new Set<number>();
-    f.lines.forEach((obs, i) => {
-      if (!obs.joinedWith.length || seen.has(obs.line)) return;
+    let seen: number[] | null = null;
+    for (let i = 0; i < f.lines.length; i++) {
+      const obs = f.lines[i];
+      if (!obs.joinedWith.length || seen?.includes(obs.line)) continue;
       const group = [obs.line, ...obs.joinedWith].sort((a, b) => a - b);
-      group.forEach((n) => seen.add(n));
+      (seen ??= []).push(...group);
       const involved = latchedOn(f, group);
-      const j = nl.lines.findIndex((l) => l.number === group.find((n) => n !== obs.line));
+      const other = group[0] === obs.line ? group[1] : group[0];
+      const j = nl.lines.findIndex((l) => l.number === other);
       const sameTip = facts.rootT[i] === facts.rootT[j];
       const p = pathIn(
         finder,
@@ -48,6 +50,6 @@ export const linesJoined: StateRule<'LINES_JOINED'> = {
           };
         }),
       );
-    });
+    }
   },
 };
