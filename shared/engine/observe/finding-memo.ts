@@ -52,27 +52,9 @@ export function findingMemo(nl: Netlist, code: FindingCode): FindingMemo {
   return memo;
 }
 
-/** Position of a finding about one set in the listing (set, then first line), kept by the rules that know it. */
-export const orderOf = new WeakMap<Finding, number>();
-
-const lineIndexCache = new WeakMap<Netlist, Map<number, number>>();
-
-/** Position in the listing of a finding about one set: the set's index, then the first line's index. */
-export function bySetPosition(nl: Netlist, f: Finding): number {
-  let lineIndex = lineIndexCache.get(nl);
-  if (!lineIndex) {
-    lineIndex = new Map(nl.lines.map((l, i) => [l.number, i]));
-    lineIndexCache.set(nl, lineIndex);
-  }
-  const set = nl.setById.get(f.sets[0])?.index ?? 0;
-  const line = f.lines.length ? (lineIndex.get(f.lines[0]) ?? -1) : -1;
-  return set * (nl.lines.length + 1) + line + 1;
-}
-
-/** A finding about one set, its listing position kept with it (a memo hit then needs no look-up). */
-export function bySetFinding(nl: Netlist, f: Finding): Finding {
-  orderOf.set(f, bySetPosition(nl, f));
-  return f;
+/** Position in the listing of a finding about one set: the set's index, then its first line's index (or none). */
+export function bySetPosition(nl: Netlist, setIndex: number, lineIndex: number): number {
+  return setIndex * (nl.lines.length + 1) + lineIndex + 1;
 }
 
 /**

@@ -5,7 +5,7 @@ import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
 import type { FindingFacts, StateRule } from '../rule.types';
 import type { Finding } from '../evaluation.types';
 import type { TerminalPath } from '../paths';
-import { bySetFinding, findingMemo, listId } from '../finding-memo';
+import { bySetPosition, findingMemo, listId } from '../finding-memo';
 
 const TALKING: ReadonlySet<FarPhase> = new Set(['talking', 'answered']);
 
@@ -38,7 +38,7 @@ function breakInFinding(
     .filter((o) => o !== si)
     .map((o) => nl.sets[o]);
   const parties = [...others.map((o) => o.name), ...(talking ? ['the far party'] : [])];
-  return bySetFinding(nl, {
+  return {
     code: 'BREAK_IN',
     severity: 'fault',
     sets: [s.id, ...others.map((o) => o.id)],
@@ -46,7 +46,7 @@ function breakInFinding(
     stations: [],
     message: `${s.name} breaks into the call on line ${line} and hears ${parties.join(' and ')}${p ? describeVia(f, p) : ''}.`,
     path: hopsOf(f.finder, p),
-  });
+  };
 }
 
 export const breakIn: StateRule<'BREAK_IN'> = {
@@ -56,7 +56,7 @@ export const breakIn: StateRule<'BREAK_IN'> = {
   bySet: true,
   // The set breaking in hears a line it has not selected (the sets on the call select it): that is possible first.
   possibleIn: ({ coarse }) => mayHearUnselected(coarse),
-  find(f, out) {
+  find(f, out, positions) {
     const { nl, facts, finder, selected } = f;
     const nSets = nl.sets.length;
     const nLines = nl.lines.length;
@@ -86,6 +86,7 @@ export const breakIn: StateRule<'BREAK_IN'> = {
         // what the finding says: the set, the line, who is on the call, whether the far party talks, the path
         const key = ((callIds[i] * nSets + si) * nLines + i) * 2 + (talking ? 1 : 0);
         out.push(memo.get(key, p) ?? memo.keep(key, p, breakInFinding(f, si, i, talking, p)));
+        positions.push(bySetPosition(nl, si, i));
       }
     }
   },

@@ -3,7 +3,7 @@ import { mayHearUnselected } from '../../model/coarse-nets';
 import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
 import type { Finding } from '../evaluation.types';
-import { bySetFinding, findingMemo, KEY_SLOTS } from '../finding-memo';
+import { bySetPosition, findingMemo, KEY_SLOTS } from '../finding-memo';
 
 export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
   kind: 'state',
@@ -11,7 +11,7 @@ export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
   fires: { position: true, event: false },
   bySet: true,
   possibleIn: ({ coarse }) => mayHearUnselected(coarse),
-  find(f, out) {
+  find(f, out, positions) {
     const { nl, mech, facts, finder } = f;
     const nLines = nl.lines.length;
     const memo = findingMemo(nl, 'SET_HEARS_UNSELECTED_LINE');
@@ -27,6 +27,7 @@ export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
         const p = networkTip >= 0 ? pathIn(finder, nl.lines[i].t, networkTip) : null;
         // what the finding says: the set, the line, the key latched (it decides the selected lines), the path
         const key = (s.index * nLines + i) * KEY_SLOTS + pressed;
+        positions.push(bySetPosition(nl, s.index, i));
         const hit = memo.get(key, p);
         if (hit) {
           out.push(hit);
@@ -42,7 +43,7 @@ export const setHearsUnselectedLine: StateRule<'SET_HEARS_UNSELECTED_LINE'> = {
           message: `${s.name} hears line ${line} ${keyText}${p ? describeVia(f, p) : ''}.`,
           path: hopsOf(finder, p),
         };
-        out.push(memo.keep(key, p, bySetFinding(nl, finding)));
+        out.push(memo.keep(key, p, finding));
       }
     }
   },
