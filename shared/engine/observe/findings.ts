@@ -2,7 +2,6 @@
 import { isActive, keySelections, selectedLines, type NetFacts } from '../model/facts';
 import type { Netlist } from '../model/netlist';
 import type { Finding } from './evaluation.types';
-import { bySetPosition, orderOf } from './finding-memo';
 import { PathFinder } from './paths';
 import type { FindingFacts, LineFacts, StateRule, WiringRule } from './rule.types';
 import { RULES } from './rules/index';
@@ -49,19 +48,17 @@ export function findingFacts(
   };
 }
 
-/** Position in the listing of a finding about one set: the set's index, then the first line's index. */
-function bySetOrder(nl: Netlist, f: Finding): number {
-  return orderOf.get(f) ?? bySetPosition(nl, f);
-}
+/** The positions argument of a rule not listed by set (it appends none). */
+const NO_POSITIONS: number[] = [];
 
 let startBuffer = new Int32Array(0);
 let keyBuffer = new Int32Array(0);
 
 /**
- * Findings about sets, from consecutive bySet rules: by set, then line, then rule. A counting sort (stable, no
- * comparisons): a state of a large plan has hundreds of these.
+ * Findings about sets, from consecutive bySet rules: by set, then line, then rule, on the positions the rules gave
+ * beside them. A counting sort (stable, no comparisons): a state of a large plan has hundreds of these.
  */
-function mergeBySet(nl: Netlist, chunks: Finding[][], out: Finding[]): void {
+function mergeBySet(nl: Netlist, chunks: Finding[][], positions: number[][], out: Finding[]): void {
   let filled = 0;
   let total = 0;
   for (const c of chunks) {
@@ -80,7 +77,7 @@ function mergeBySet(nl: Netlist, chunks: Finding[][], out: Finding[]): void {
   const keys = keyBuffer;
   start.fill(0, 0, slots + 1);
   let k = 0;
-  for (const c of chunks) for (const x of c) start[(keys[k++] = bySetOrder(nl, x)) + 1]++;
+  for (const c of positions) for (const x of c) start[(keys[k++] = x) + 1]++;
   for (let i = 0; i < slots; i++) start[i + 1] += start[i];
   const base = out.length;
   out.length = base + total;
@@ -92,21 +89,24 @@ function mergeBySet(nl: Netlist, chunks: Finding[][], out: Finding[]): void {
 export function stateFindings(f: FindingFacts, rules: readonly StateRule[] = STATE_RULES): Finding[] {
   const out: Finding[] = [];
   let group: Finding[][] | null = null;
+  let groupPositions: number[][] | null = null;
   for (const rule of rules) {
     if (f.eventsOnly && !rule.fires.event) continue;
     if (rule.bySet) {
       const found: Finding[] = [];
-      rule.find(f, found);
+      const at: number[] = [];
+      rule.find(f, found, at);
       (group ??= []).push(found);
+      (groupPositions ??= []).push(at);
       continue;
     }
     if (group) {
-      mergeBySet(f.nl, group, out);
-      group = null;
+      mergeBySet(f.nl, group, groupPositions!, out);
+      group = groupPositions = null;
     }
-    rule.find(f, out);
+    rule.find(f, out, NO_POSITIONS);
   }
-  if (group) mergeBySet(f.nl, group, out);
+  if (group) mergeBySet(f.nl, group, groupPositions!, out);
   f.finder?.release();
   return out;
 }

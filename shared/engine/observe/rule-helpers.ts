@@ -67,7 +67,17 @@ const joinByPath = new WeakMap<TerminalPath, string>();
 
 /** Sets with a line key down on one of these lines: the sets whose keys do the joining. */
 export function latchedOn(f: FindingFacts, lines: readonly number[]): SetInfo[] {
-  return f.nl.sets.filter(
-    (s) => f.mech.pressedKey[s.index] > 0 && f.selected[s.index].some((n) => lines.includes(n)),
-  );
+  const { sets } = f.nl;
+  const { pressedKey } = f.mech;
+  const out: SetInfo[] = [];
+  for (let s = 0; s < sets.length; s++) {
+    if (!(pressedKey[s] > 0)) continue;
+    const selected = f.selected[s];
+    for (let k = 0; k < selected.length; k++) {
+      if (!lines.includes(selected[k])) continue;
+      out.push(sets[s]);
+      break;
+    }
+  }
+  return out;
 }

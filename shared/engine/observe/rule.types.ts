@@ -62,8 +62,11 @@ export interface StateRule<C extends FindingCode = FindingCode> {
    * proof). A rule without it can always fire as far as the proof knows.
    */
   possibleIn?: (c: CoarseFacts) => boolean;
-  /** Appends its findings; with facts.eventsOnly, only those the KSU event raises. */
-  find(facts: FindingFacts, out: Finding[]): void;
+  /**
+   * Appends its findings; with facts.eventsOnly, only those the KSU event raises. A bySet rule appends beside each
+   * finding its position in the listing to `positions` (finding-memo.ts bySetPosition); other rules leave it.
+   */
+  find(facts: FindingFacts, out: Finding[], positions: number[]): void;
 }
 
 /** A finding kind of the wiring alone: wrong in every state, found once per netlist. */

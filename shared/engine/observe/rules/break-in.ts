@@ -1,13 +1,53 @@
 /** A set hearing a line it did not select while another set is on that line's call through its own key. */
 import { mayHearUnselected } from '../../model/coarse-nets';
-import type { SetInfo } from '../../model/netlist';
 import type { FarPhase } from '../../sim/state.schema';
 import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
-import type { StateRule } from '../rule.types';
+import type { FindingFacts, StateRule } from '../rule.types';
 import type { Finding } from '../evaluation.types';
-import { bySetFinding, listId, memoFinding } from '../finding-memo';
+import type { TerminalPath } from '../paths';
+import { bySetPosition, findingMemo, listId } from '../finding-memo';
 
 const TALKING: ReadonlySet<FarPhase> = new Set(['talking', 'answered']);
+
+/** Per line index, kept between calls (evaluation is synchronous): the list id of the sets on its call, or -1. */
+let callIds = new Int32Array(0);
+/** Per line index: how many sets are on its call, and the first of them. */
+let callSizes = new Int32Array(0);
+let callFirst = new Int32Array(0);
+const onCall: number[] = [];
+
+/** Fills `onCall` with the sets (indices, in set order) on line i's call: active, selecting it and hearing it. */
+function setsOnCall(f: FindingFacts, i: number): number[] {
+  const line = f.nl.lines[i].number;
+  onCall.length = 0;
+  for (const o of f.facts.setsOn[i]) if (f.active[o] && f.selected[o].includes(line)) onCall.push(o);
+  return onCall;
+}
+
+function breakInFinding(
+  f: FindingFacts,
+  si: number,
+  i: number,
+  talking: boolean,
+  p: TerminalPath | null,
+): Finding {
+  const { nl } = f;
+  const s = nl.sets[si];
+  const line = nl.lines[i].number;
+  const others = setsOnCall(f, i)
+    .filter((o) => o !== si)
+    .map((o) => nl.sets[o]);
+  const parties = [...others.map((o) => o.name), ...(talking ? ['the far party'] : [])];
+  return {
+    code: 'BREAK_IN',
+    severity: 'fault',
+    sets: [s.id, ...others.map((o) => o.id)],
+    lines: [line],
+    stations: [],
+    message: `${s.name} breaks into the call on line ${line} and hears ${parties.join(' and ')}${p ? describeVia(f, p) : ''}.`,
+    path: hopsOf(f.finder, p),
+  };
+}
 
 export const breakIn: StateRule<'BREAK_IN'> = {
   kind: 'state',
@@ -16,53 +56,37 @@ export const breakIn: StateRule<'BREAK_IN'> = {
   bySet: true,
   // The set breaking in hears a line it has not selected (the sets on the call select it): that is possible first.
   possibleIn: ({ coarse }) => mayHearUnselected(coarse),
-  find(f, out) {
-    const { nl, facts, finder, active, selected } = f;
+  find(f, out, positions) {
+    const { nl, facts, finder, selected } = f;
     const nSets = nl.sets.length;
     const nLines = nl.lines.length;
-    // Per line index: the sets on it through their own key, in set order (listeners other than them break in).
-    const onCallByLine: (SetInfo[] | undefined)[] = new Array(nLines);
-    const onCallIds: number[] = new Array(nLines);
-    for (const s of nl.sets) {
-      const heard = facts.hears[s.index];
+    if (callIds.length < nLines) {
+      callIds = new Int32Array(nLines);
+      callSizes = new Int32Array(nLines);
+      callFirst = new Int32Array(nLines);
+    }
+    callIds.fill(-2, 0, nLines); // -2: not yet looked at
+    const memo = findingMemo(nl, 'BREAK_IN');
+    for (let si = 0; si < nSets; si++) {
+      const heard = facts.hears[si];
       if (!heard.length) continue;
-      const networkTip = finder ? networkTerminal(f, s.index) : -1;
+      const networkTip = finder ? networkTerminal(f, si) : -1;
       for (const i of heard) {
-        const line = nl.lines[i].number;
-        if (selected[s.index].includes(line)) continue;
-        let onCall = onCallByLine[i];
-        if (!onCall) {
-          onCall = onCallByLine[i] = nl.sets.filter(
-            (o) => active[o.index] && selected[o.index].includes(line) && facts.hears[o.index].includes(i),
-          );
-          onCallIds[i] = onCall.length
-            ? listId(
-                nl,
-                onCall.map((o) => o.index),
-              )
-            : -1;
+        if (selected[si].includes(nl.lines[i].number)) continue;
+        if (callIds[i] === -2) {
+          const sets = setsOnCall(f, i);
+          callSizes[i] = sets.length;
+          callFirst[i] = sets.length ? sets[0] : -1;
+          callIds[i] = sets.length ? listId(nl, sets) : -1;
         }
-        if (!onCall.length || (onCall.length === 1 && onCall[0] === s)) continue;
+        // the sets on the call other than this one break in with it
+        if (!callSizes[i] || (callSizes[i] === 1 && callFirst[i] === si)) continue;
         const p = networkTip >= 0 ? pathIn(finder, nl.lines[i].t, networkTip) : null;
         const talking = TALKING.has(f.lines[i].far);
         // what the finding says: the set, the line, who is on the call, whether the far party talks, the path
-        const key = ((onCallIds[i] * nSets + s.index) * nLines + i) * 2 + (talking ? 1 : 0);
-        out.push(
-          memoFinding(nl, 'BREAK_IN', key, p, () => {
-            const others = onCall.includes(s) ? onCall.filter((o) => o !== s) : onCall;
-            const parties = [...others.map((o) => o.name), ...(talking ? ['the far party'] : [])];
-            const finding: Finding = {
-              code: 'BREAK_IN',
-              severity: 'fault',
-              sets: [s.id, ...others.map((o) => o.id)],
-              lines: [line],
-              stations: [],
-              message: `${s.name} breaks into the call on line ${line} and hears ${parties.join(' and ')}${p ? describeVia(f, p) : ''}.`,
-              path: hopsOf(finder, p),
-            };
-            return bySetFinding(nl, finding);
-          }),
-        );
+        const key = ((callIds[i] * nSets + si) * nLines + i) * 2 + (talking ? 1 : 0);
+        out.push(memo.get(key, p) ?? memo.keep(key, p, breakInFinding(f, si, i, talking, p)));
+        positions.push(bySetPosition(nl, si, i));
       }
     }
   },

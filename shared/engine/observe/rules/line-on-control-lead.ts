@@ -8,14 +8,17 @@ import { fixedNet } from '../../model/coarse-nets';
 import type { Conductor } from '../../document/plan.schema';
 import { describeVia, hopsOf, latchedOn, pathIn } from '../rule-helpers';
 import type { FindingFacts, StateRule } from '../rule.types';
+import type { Finding } from '../evaluation.types';
+import { listId, memoFinding } from '../finding-memo';
 import { firstCrossing, lastUnitLeadSentence, type TerminalPath } from '../paths';
 
-interface Landing {
-  conductor: Conductor;
-  /** 'A' / 'L' of line index `on`, or ground. */
-  lead: 'A' | 'L' | 'ground';
-  on: number;
-}
+/**
+ * Line i's landings on one target (a line index, or the line count for ground), one bit each: bit 2c + k for
+ * conductor c (tip 0, ring 1) on lead k (the A-lead, or ground, 0; the lamp lead 1), listed in bit order.
+ */
+const TIP_BITS = 0b0011;
+const RING_BITS = 0b1100;
+const CONDUCTORS: readonly Conductor[] = ['tip', 'ring'];
 
 const LEAD_WORDS = { A: 'A-lead', L: 'lamp lead', ground: 'ground' } as const;
 
@@ -29,13 +32,53 @@ function via(f: FindingFacts, p: TerminalPath): string {
   return lead ? `, through ${lead}` : '';
 }
 
-/** Landings grouped by the line they land on (index), or by the line count for ground. */
-function addLanding(map: Map<number, Landing[]> | null, key: number, x: Landing): Map<number, Landing[]> {
-  const out = map ?? new Map<number, Landing[]>();
-  const list = out.get(key);
-  if (list) list.push(x);
-  else out.set(key, [x]);
-  return out;
+/** Per target: line i's landings on it (the bits above), kept between calls (evaluation is synchronous). */
+let landingBuffer = new Uint8Array(0);
+/** Per line index: the root of its A-lead; per root: `stamp` when some line's A-lead or lamp lead is on it. */
+let rootABuffer = new Int32Array(0);
+let controlMarks = new Int32Array(0);
+let stamp = 0;
+
+/** The finding for line i's landings `bits` on `target`, made once for what it says (finding-memo.ts). */
+function landingFinding(f: FindingFacts, i: number, target: number, bits: number): Finding {
+  const { nl, finder } = f;
+  const nLines = nl.lines.length;
+  const line = nl.lines[i];
+  const other = target === nLines ? null : nl.lines[target];
+  const first = 31 - Math.clz32(bits & -bits);
+  const firstLead = first & 1 ? 'L' : other ? 'A' : 'ground';
+  const end = other ? (firstLead === 'A' ? other.a : other.l) : nl.gnd;
+  const p: TerminalPath | null = pathIn(finder, first < 2 ? line.t : line.r, end);
+  const lines = other ? [line.number, other.number] : [line.number];
+  const latched = latchedOn(f, lines);
+  const latchedId = listId(
+    nl,
+    latched.map((s) => s.index),
+  );
+  // what the finding says: the line, the target and the landings on it, the sets latched on them, the path
+  const key = ((latchedId * (nLines + 1) + target) * nLines + i) * 16 + bits;
+  return memoFinding(nl, 'LINE_ON_CONTROL_LEAD', key, p, () => {
+    const where: string[] = [];
+    for (let b = 0; b < 4; b++) {
+      if (!(bits & (1 << b))) continue;
+      const lead = b & 1 ? 'L' : other ? 'A' : 'ground';
+      where.push(`its ${CONDUCTORS[b >> 1]} on ${other ? `line ${other.number}'s ` : ''}${LEAD_WORDS[lead]}`);
+    }
+    const effects = [`line ${line.number} is seized or noisy with nobody on it`];
+    if (other && bits & 0b0101)
+      effects.push(`line ${other.number} looks in use (its A-lead worked with nobody off hook)`);
+    if (other && bits & 0b1010)
+      effects.push(`line ${other.number}'s lamp supply is on it (lamps dark or lit wrongly)`);
+    return {
+      code: 'LINE_ON_CONTROL_LEAD',
+      severity: 'fault',
+      sets: latched.map((s) => s.id),
+      lines,
+      stations: [],
+      message: `Line ${line.number} has ${where.join(' and ')}${p ? via(f, p) : ''}: ${effects.join('; ')}.`,
+      path: hopsOf(finder, p),
+    };
+  });
 }
 
 export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
@@ -55,56 +98,58 @@ export const lineOnControlLead: StateRule<'LINE_ON_CONTROL_LEAD'> = {
     );
   },
   find(f, out) {
-    const { nl, facts, finder } = f;
+    const { nl, facts } = f;
     const { roots, rootT, rootR, rootL, gnd } = facts;
     const d = nl.dense;
     const nLines = nl.lines.length;
-    const rootA: number[] = new Array(nLines);
-    for (let j = 0; j < nLines; j++) rootA[j] = roots[d[nl.lines[j].a]];
+    if (landingBuffer.length < nLines + 1) {
+      landingBuffer = new Uint8Array(nLines + 1);
+      rootABuffer = new Int32Array(nLines + 1);
+    }
+    if (controlMarks.length < roots.length) controlMarks = new Int32Array(roots.length);
+    if (++stamp >= 0x7fffffff) {
+      controlMarks.fill(0);
+      stamp = 1;
+    }
+    const landings = landingBuffer;
+    const rootA = rootABuffer;
+    const marks = controlMarks;
+    for (let j = 0; j < nLines; j++) {
+      const ra = (rootA[j] = roots[d[nl.lines[j].a]]);
+      marks[ra] = stamp;
+      marks[rootL[j]] = stamp;
+    }
     for (let i = 0; i < nLines; i++) {
       // Hot path (every state of a sweep): nothing allocated until a conductor lands somewhere.
-      let byTarget: Map<number, Landing[]> | null = null;
+      let any = false;
       for (let c = 0; c < 2; c++) {
-        const conductor: Conductor = c === 0 ? 'tip' : 'ring';
         const r = c === 0 ? rootT[i] : rootR[i];
         if (c === 1 && r === rootT[i]) continue; // one net: the tip's landing says it
         // On ground, the A-leads of lines in use and shorted lamp leads are ground too: ground says it all.
         if (r === gnd) {
-          byTarget = addLanding(byTarget, nLines, { conductor, lead: 'ground', on: -1 });
+          if (!any) landings.fill(0, 0, nLines + 1);
+          any = true;
+          landings[nLines] |= 1 << (2 * c);
           continue;
         }
+        if (marks[r] !== stamp) continue; // on no line's A-lead or lamp lead
         for (let j = 0; j < nLines; j++) {
           if (j === i) continue;
-          if (r === rootA[j]) byTarget = addLanding(byTarget, j, { conductor, lead: 'A', on: j });
-          if (r === rootL[j]) byTarget = addLanding(byTarget, j, { conductor, lead: 'L', on: j });
+          const onA = r === rootA[j];
+          const onL = r === rootL[j];
+          if (!onA && !onL) continue;
+          if (!any) landings.fill(0, 0, nLines + 1);
+          any = true;
+          landings[j] |= ((onA ? 1 : 0) | (onL ? 2 : 0)) << (2 * c);
         }
       }
-      if (!byTarget) continue;
-      const line = nl.lines[i];
-      for (const landings of byTarget.values()) {
-        const first = landings[0];
-        const other = first.lead === 'ground' ? null : nl.lines[first.on];
-        const target = first.lead === 'ground' ? nl.gnd : first.lead === 'A' ? other!.a : other!.l;
-        const p: TerminalPath | null = pathIn(finder, first.conductor === 'tip' ? line.t : line.r, target);
-        const where = landings
-          .map((x) => `its ${x.conductor} on ${other ? `line ${other.number}'s ` : ''}${LEAD_WORDS[x.lead]}`)
-          .join(' and ');
-        const lines = other ? [line.number, other.number] : [line.number];
-        const effects = [`line ${line.number} is seized or noisy with nobody on it`];
-        if (landings.some((x) => x.lead === 'A'))
-          effects.push(`line ${other!.number} looks in use (its A-lead worked with nobody off hook)`);
-        if (landings.some((x) => x.lead === 'L'))
-          effects.push(`line ${other!.number}'s lamp supply is on it (lamps dark or lit wrongly)`);
-        out.push({
-          code: 'LINE_ON_CONTROL_LEAD',
-          severity: 'fault',
-          sets: latchedOn(f, lines).map((s) => s.id),
-          lines,
-          stations: [],
-          message: `Line ${line.number} has ${where}${p ? via(f, p) : ''}: ${effects.join('; ')}.`,
-          path: hopsOf(finder, p),
-        });
-      }
+      if (!any) continue;
+      // in the order the targets are first met: the tip's (by line, or ground), then those of the ring alone
+      for (let t = 0; t <= nLines; t++)
+        if (landings[t] & TIP_BITS) out.push(landingFinding(f, i, t, landings[t]));
+      for (let t = 0; t <= nLines; t++)
+        if (landings[t] & RING_BITS && !(landings[t] & TIP_BITS))
+          out.push(landingFinding(f, i, t, landings[t]));
     }
   },
 };

@@ -3,6 +3,7 @@ import { fixedNet } from '../../model/coarse-nets';
 import { listWords } from '../../document/words';
 import { hopsOf, joinSentence, latchedOn, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
+import { listId, memoFinding } from '../finding-memo';
 
 export const linesJoined: StateRule<'LINES_JOINED'> = {
   kind: 'state',
@@ -16,31 +17,39 @@ export const linesJoined: StateRule<'LINES_JOINED'> = {
   },
   find(f, out) {
     const { nl, facts, finder } = f;
-    const seen = new Set<number>();
-    f.lines.forEach((obs, i) => {
-      if (!obs.joinedWith.length || seen.has(obs.line)) return;
+    let seen: number[] | null = null;
+    for (let i = 0; i < f.lines.length; i++) {
+      const obs = f.lines[i];
+      if (!obs.joinedWith.length || seen?.includes(obs.line)) continue;
       const group = [obs.line, ...obs.joinedWith].sort((a, b) => a - b);
-      group.forEach((n) => seen.add(n));
+      (seen ??= []).push(...group);
       const involved = latchedOn(f, group);
-      const j = nl.lines.findIndex((l) => l.number === group.find((n) => n !== obs.line));
+      const other = group[0] === obs.line ? group[1] : group[0];
+      const j = nl.lines.findIndex((l) => l.number === other);
       const sameTip = facts.rootT[i] === facts.rootT[j];
       const p = pathIn(
         finder,
         sameTip ? nl.lines[i].t : nl.lines[i].r,
         sameTip ? nl.lines[j].t : nl.lines[j].r,
       );
-      const how =
-        joinSentence(nl, p) ??
-        (involved.length ? ` through ${involved.map((s) => s.name).join(' and ')}` : '');
-      out.push({
-        code: 'LINES_JOINED',
-        severity: 'fault',
-        sets: involved.map((s) => s.id),
-        lines: group,
-        stations: [],
-        message: `Lines ${listWords(group)} are joined${how}.`,
-        path: hopsOf(finder, p),
-      });
-    });
+      // what the finding says: the lines, the sets latched on them, the path
+      const key = listId(nl, [...group, -1, ...involved.map((s) => s.index)]);
+      out.push(
+        memoFinding(nl, 'LINES_JOINED', key, p, () => {
+          const how =
+            joinSentence(nl, p) ??
+            (involved.length ? ` through ${involved.map((s) => s.name).join(' and ')}` : '');
+          return {
+            code: 'LINES_JOINED',
+            severity: 'fault',
+            sets: involved.map((s) => s.id),
+            lines: group,
+            stations: [],
+            message: `Lines ${listWords(group)} are joined${how}.`,
+            path: hopsOf(finder, p),
+          };
+        }),
+      );
+    }
   },
 };

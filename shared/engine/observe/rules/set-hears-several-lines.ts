@@ -3,7 +3,7 @@ import { mayHear } from '../../model/coarse-nets';
 import { listWords } from '../../document/words';
 import { describeVia, hopsOf, networkTerminal, pathIn } from '../rule-helpers';
 import type { StateRule } from '../rule.types';
-import { bySetFinding, memoFinding } from '../finding-memo';
+import { bySetPosition, memoFinding } from '../finding-memo';
 
 export const setHearsSeveralLines: StateRule<'SET_HEARS_SEVERAL_LINES'> = {
   kind: 'state',
@@ -13,7 +13,7 @@ export const setHearsSeveralLines: StateRule<'SET_HEARS_SEVERAL_LINES'> = {
   // Two lines heard in a state are two lines heard in one joint position of the sets placing the networks.
   possibleIn: ({ coarse }) =>
     coarse.nl.sets.some((s) => mayHear(coarse, s.index, (heard) => heard.length > 1)),
-  find(f, out) {
+  find(f, out, positions) {
     const { nl, facts, finder } = f;
     const nLines = nl.lines.length;
     for (const s of nl.sets) {
@@ -30,7 +30,7 @@ export const setHearsSeveralLines: StateRule<'SET_HEARS_SEVERAL_LINES'> = {
       out.push(
         memoFinding(nl, 'SET_HEARS_SEVERAL_LINES', key, p, () => {
           const heardNumbers = heard.map((i) => nl.lines[i].number);
-          return bySetFinding(nl, {
+          return {
             code: 'SET_HEARS_SEVERAL_LINES',
             severity: 'fault',
             sets: [s.id],
@@ -38,9 +38,10 @@ export const setHearsSeveralLines: StateRule<'SET_HEARS_SEVERAL_LINES'> = {
             stations: [],
             message: `${s.name} hears lines ${listWords(heardNumbers)} at once${p ? describeVia(f, p) : ''}.`,
             path: hopsOf(finder, p),
-          });
+          };
         }),
       );
+      positions.push(bySetPosition(nl, s.index, heard[0]));
     }
   },
 };
