@@ -22,6 +22,7 @@ import {
   type Plan,
 } from '../../shared/engine/index';
 import { buildCoarseNets } from '../../shared/engine/model/coarse-nets';
+import { coarsePositions } from '../../shared/engine/search/clean-proof';
 import { RULES } from '../../shared/engine/observe/rules/index';
 import { operate } from '../support/plan-builder';
 import { buildPlan, planSpec } from '../support/random-plans';
@@ -87,16 +88,7 @@ describe('proveClean on random plans', () => {
         const plan = buildPlan(spec);
         const nl = getNetlist(plan);
         const moves = plan.sets.map((_, i) => setMoves(plan, i));
-        const coarse = buildCoarseNets(
-          nl,
-          moves.map((ms, i) =>
-            ms.map((m) => ({
-              offHook: m.offHook,
-              pressedKey: m.key !== null && nl.sets[i].keyLine[m.key] > 0 ? m.key : 0,
-              handsFreeOn: m.handsFree,
-            })),
-          ),
-        );
+        const coarse = buildCoarseNets(nl, coarsePositions(plan));
         const at = moves.map((ms, i) => picks[i] % ms.length);
         const state = initialState(plan);
         plan.sets.forEach((s, i) => {

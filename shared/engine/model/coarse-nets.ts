@@ -12,7 +12,7 @@
  * coarse edge, so two terminals on one net of the state are on one coarse net. A spurious coarse join needs two
  * different positions of one set, or sets whose positions cannot go together in any one state.
  */
-import type { Netlist } from './netlist';
+import { findRoot, type Netlist } from './netlist';
 import { contactClosed, createMech, type Mech } from './nets';
 
 /** One position of a set, as the nets read it (a key index whose key is no line key reads as none). */
@@ -34,11 +34,6 @@ export interface CoarseNets {
   root: Int32Array;
   /** Coarse nets over the positions `skip` leaves in: every state that puts no set in a skipped position refines them. */
   without(skip: (set: number, position: number) => boolean): Int32Array;
-}
-
-function findRoot(parent: Int32Array, x: number): number {
-  while (parent[x] !== x) x = parent[x] = parent[parent[x]];
-  return x;
 }
 
 /** The coarse nets of a netlist over the given positions of each set (indexed like netlist.sets). */
@@ -121,7 +116,7 @@ const PLACEMENT_LIMIT = 20_000;
 
 /**
  * Visits every joint position (`at[s]` for each set s in `sets`) of the sets whose positions place these dense
- * components, together with `sets` themselves; `netOf(d)` is then the coarse net of component d. Returns false
+ * components, together with `sets` themselves; `netOf(d)` is then the coarse net of component d. Returns 'too-many'
  * when there are too many joint positions to visit (nothing visited), else whether visit always returned true.
  */
 export function forEachPlacement(

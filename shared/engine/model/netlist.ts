@@ -184,7 +184,8 @@ export function perNetlist<T>(make: (nl: Netlist) => T): (nl: Netlist) => T {
   };
 }
 
-function find(parent: Int32Array, x: number): number {
+/** The root of x in a union-find forest, halving the path on the way. */
+export function findRoot(parent: Int32Array, x: number): number {
   while (parent[x] !== x) {
     parent[x] = parent[parent[x]];
     x = parent[x];
@@ -893,12 +894,12 @@ function staticComponents(n: number, flat: FlatEdges, wires: number): Int32Array
   for (let i = 0; i < n; i++) parent[i] = i;
   const { edgeA, edgeB } = flat;
   for (let k = 0; k < wires; k++) {
-    const ra = find(parent, edgeA[k]);
-    const rb = find(parent, edgeB[k]);
+    const ra = findRoot(parent, edgeA[k]);
+    const rb = findRoot(parent, edgeB[k]);
     if (ra !== rb) parent[ra] = rb;
   }
   // in place: every entry becomes its root
-  for (let i = 0; i < n; i++) parent[i] = find(parent, i);
+  for (let i = 0; i < n; i++) parent[i] = findRoot(parent, i);
   return parent;
 }
 

@@ -50,15 +50,16 @@ export function evaluateWithNets(
 }
 
 /**
- * Findings only, without paths or observations: the sweep's hot path. Same codes, sets, lines, stations and
- * messages (minus path-based wording) as evaluate(plan, state, { paths: false }).findings.
+ * Findings only, without observations and (by default) without paths: the sweep's hot path. Same codes, sets, lines,
+ * stations and messages (minus path-based wording) as evaluate(plan, state, { paths: false }).findings; with paths,
+ * the findings of evaluate(plan, state) themselves.
  */
-export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): Finding[] {
+export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets, paths = false): Finding[] {
   const nl = getNetlist(plan);
   const lineStates = lineStatesOf(nl, state);
   const lines = lineFacts(nl, nets.facts, lineStates, true);
   const buzzerOn = buzzersOn(nl, state, nets.facts);
-  return allFindings(findingFacts(nl, state, nets, lineStates, lines, buzzerOn, false), false);
+  return allFindings(findingFacts(nl, state, nets, lineStates, lines, buzzerOn, paths), paths);
 }
 
 /**
@@ -67,12 +68,7 @@ export function evaluateFindings(plan: Plan, state: SimState, nets: StateNets): 
  * findings in the same order.
  */
 export function evaluateFindingsWithPaths(plan: Plan, state: SimState): Finding[] {
-  const nl = getNetlist(plan);
-  const nets = computeNetsScratch(plan, state);
-  const lineStates = lineStatesOf(nl, state);
-  const lines = lineFacts(nl, nets.facts, lineStates, true);
-  const buzzerOn = buzzersOn(nl, state, nets.facts);
-  return allFindings(findingFacts(nl, state, nets, lineStates, lines, buzzerOn, true), true);
+  return evaluateFindings(plan, state, computeNetsScratch(plan, state), true);
 }
 
 /**

@@ -22,16 +22,22 @@ export type CleanProof = { proven: true; words: string } | { proven: false; reas
 
 const STATE_RULES = Object.values(RULES).filter((r): r is StateRule => r.kind === 'state');
 
-/** Whether no state of the plan can show a state rule's finding, and in words why (or why it could not say). */
-export function proveClean(plan: Plan, opts: Pick<SweepOptions, 'events'> = {}): CleanProof {
+/** Every position the sweep puts each set in, as the coarse nets read it (a key that is no line key reads as none). */
+export function coarsePositions(plan: Plan): CoarsePosition[][] {
   const nl = getNetlist(plan);
-  const positions: CoarsePosition[][] = plan.sets.map((_, i) =>
+  return plan.sets.map((_, i) =>
     setMoves(plan, i).map((m) => {
       const key = m.key ?? 0;
       const valid = key > 0 && key < nl.sets[i].keyLine.length && nl.sets[i].keyLine[key] > 0;
       return { offHook: m.offHook, pressedKey: valid ? key : 0, handsFreeOn: m.handsFree };
     }),
   );
+}
+
+/** Whether no state of the plan can show a state rule's finding, and in words why (or why it could not say). */
+export function proveClean(plan: Plan, opts: Pick<SweepOptions, 'events'> = {}): CleanProof {
+  const nl = getNetlist(plan);
+  const positions = coarsePositions(plan);
   const start = initialState(plan);
   const events = sweepEvents(plan, opts.events).map((e) => applyActions(plan, start, eventActions(plan, e)));
   const coarse = buildCoarseNets(nl, positions);
