@@ -91,7 +91,8 @@ describe('fixed cases', () => {
 
 describe('the default sweep finds what the exhaustive sweep finds', () => {
   it('on random plans of two to four sets', () => {
-    const seed = Number(process.env.SWEEP_SEED ?? Date.now() % 1_000_000);
+    // A fixed seed by default, so a run's length does not depend on the clock; SWEEP_SEED explores others.
+    const seed = Number(process.env.SWEEP_SEED ?? 11);
     console.log(`sweep soundness: fast-check seed ${seed} (SWEEP_SEED=${seed} repeats it)`);
     fc.assert(
       fc.property(planSpec, (spec) => {
