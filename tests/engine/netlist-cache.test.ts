@@ -83,6 +83,16 @@ const edit: fc.Arbitrary<Edit> = fc.oneof(
     const cable = { id: `${id}-cord`, from: { part: id, port: 'cord' }, to: jack, label: '' };
     return { ...plan, sets: [...plan.sets, set], cables: [...plan.cables, cable] };
   }),
+  // names and stations: what findings kept across edits say besides their paths (observe/finding-memo.ts)
+  fc.tuple(fc.nat(), fc.string({ minLength: 1, maxLength: 8 })).map(([n, name]): Edit => (plan) => {
+    const i = n % plan.sets.length;
+    return { ...plan, sets: replaceAt(plan.sets, i, { ...plan.sets[i], name }) };
+  }),
+  fc.tuple(fc.nat(), fc.nat()).map(([n, k]): Edit => (plan) => {
+    const i = n % plan.sets.length;
+    const station = pick(plan.ksu.stations, k)?.id;
+    return { ...plan, sets: replaceAt(plan.sets, i, { ...plan.sets[i], station }) };
+  }),
   fc.nat().map((n): Edit => (plan) => {
     if (plan.sets.length <= 1) return plan;
     return { ...plan, sets: plan.sets.filter((_, j) => j !== n % plan.sets.length) };
@@ -188,6 +198,32 @@ describe('wiring findings after an edit', () => {
     expect(before.length).toBeGreaterThan(2);
     expect(after.length).toBe(before.length);
     expect(after.filter((f, i) => f === before[i]).length).toBe(before.length);
+  });
+});
+
+describe('a lead edit', () => {
+  it('keeps every other wire object, and the findings whose paths do not run over the edited leads', () => {
+    // guard on the properties above: they would pass as well with every netlist built afresh
+    const plan = largePlan(3, 10);
+    const state = busyState(plan);
+    const before = getNetlist(plan);
+    const findingsBefore = evaluate(plan, state).findings;
+    const s = plan.sets[0];
+    const edited: Plan = {
+      ...plan,
+      sets: replaceAt(plan.sets, 0, { ...s, leadChanges: [{ kind: 'lift', pair: 1, conductor: 'both' }] }),
+    };
+    const after = getNetlist(edited);
+    const kept = new Set(before.edges);
+    // lifting both conductors of pair 1 removes two lead wires (lead-changes.ts); every other is the same object
+    expect(after.edges.length).toBe(before.edges.length - 2);
+    expect(after.edges.filter((e) => !kept.has(e))).toEqual([]);
+    const findingsAfter = evaluate(edited, state).findings;
+    const carried = findingsAfter.filter((f) => findingsBefore.includes(f));
+    // the benchmark's ten sets in a busy moment have many findings that are not about the first set
+    const elsewhere = findingsBefore.filter((f) => !f.sets.includes(s.id));
+    expect(elsewhere.length).toBeGreaterThan(5);
+    expect(carried.length).toBeGreaterThanOrEqual(elsewhere.length / 2);
   });
 });
 

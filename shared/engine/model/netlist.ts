@@ -199,8 +199,9 @@ const cache = new WeakMap<Plan, Netlist>();
 export function getNetlist(plan: Plan, options: { cached?: boolean } = {}): Netlist {
   let nl = cache.get(plan);
   if (!nl) {
-    nl = buildNetlist(plan, options);
+    nl = (options.cached !== false && lastBuilt && rewiredFrom(lastBuilt, plan)) || buildNetlist(plan, options);
     cache.set(plan, nl);
+    if (options.cached !== false) lastBuilt = nl;
   }
   return nl;
 }
@@ -726,9 +727,11 @@ function wireParts(
   addOnParts: PartInfo[],
   adapterParts: PartInfo[],
 ) {
+  const wireStart = new Int32Array(b.parts.length).fill(-1);
   plan.sets.forEach((s, i) => {
     const info = sets[i];
     const p = b.parts[info.part];
+    wireStart[p.index] = b.edges.length;
     wireCached(b, p, s, info.index, () => {
       wirePart(b, p, s.leadChanges, info.index);
       addRingers(b, p, info, s.ringerLines);
@@ -736,12 +739,14 @@ function wireParts(
   });
   plan.addOns.forEach((a, i) => {
     const p = addOnParts[i];
+    wireStart[p.index] = b.edges.length;
     wireCached(b, p, a, p.servesSet, () => wirePart(b, p, a.leadChanges, p.servesSet));
   });
   plan.adapters.forEach((a, i) => {
     const p = adapterParts[i];
     wireCached(b, p, a, -1, () => wirePart(b, p, [], -1, a.bridgedPairs));
   });
+  return wireStart;
 }
 
 function portExists(plan: Plan, part: PartInfo, port: string): boolean {
@@ -910,8 +915,8 @@ function staticComponents(n: number, flat: FlatEdges, wires: number): Int32Array
 let rootBuffer = new Int32Array(0);
 
 function denseComponents(
-  b: Builder,
-  ksu: KsuTerminals,
+  b: Pick<Builder, 'terminals' | 'elements' | 'contacts'>,
+  ksu: Pick<KsuTerminals, 'gnd' | 'lines' | 'stations'>,
   staticRoot: Int32Array,
 ): Pick<Netlist, 'dense' | 'denseCount' | 'hot'> {
   const n = b.terminals.length;
@@ -984,13 +989,13 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
   const setById = new Map(sets.map((s) => [s.id, s]));
   const addOnParts = addAddOns(b, plan, setById);
   const adapterParts = addAdapters(b, plan);
-  wireParts(b, plan, sets, addOnParts, adapterParts);
+  const wireStart = wireParts(b, plan, sets, addOnParts, adapterParts);
   wireCables(b, plan);
   const edges = b.edges.concat(b.contactEdges);
   const flat = flatOf(b);
   const staticRoot = staticComponents(b.terminals.length, flat, b.edges.length);
   const { dense, denseCount, hot } = denseComponents(b, ksu, staticRoot);
-  return {
+  const nl = assembled({
     plan,
     parts: b.parts,
     partById: b.partById,
@@ -1009,9 +1014,245 @@ export function buildNetlist(plan: Plan, options: { cached?: boolean } = {}): Ne
     denseCount,
     hot,
     work: new Int32Array(denseCount),
+    partTerminals: b.parts.map((_, i) => ({ names: b.names[i], pinIds: b.pinIds[i] })),
+  });
+  wireStarts.set(nl, wireStart);
+  return nl;
+}
+
+/**
+ * A netlist of its fields, with the terminal index made on first read. Made here, away from the builders: a getter
+ * made inside one would keep that builder's closures (and what they hold, an earlier netlist among them) alive.
+ */
+function assembled(fields: Omit<Netlist, 'terminalIndex'>): Netlist {
+  return {
+    ...fields,
     get terminalIndex() {
       return terminalIndexOf(this);
     },
-    partTerminals: b.parts.map((_, i) => ({ names: b.names[i], pinIds: b.pinIds[i] })),
   };
+}
+
+/** Per netlist and part: where the part's wires start in edges (sets and add-ons; -1 for other parts). */
+const wireStarts = new WeakMap<Netlist, Int32Array>();
+/** The netlist built last, for the next edit to start from (see rewiredFrom). */
+let lastBuilt: Netlist | null = null;
+
+/** Sets or add-ons of `next` that differ from those of `prev` in their lead changes alone (null: in more). */
+function leadEdits<T extends { leadChanges: LeadChange[] }>(prev: readonly T[], next: readonly T[]): number[] | null {
+  if (prev.length !== next.length) return null;
+  const changed: number[] = [];
+  for (let i = 0; i < next.length; i++) {
+    if (prev[i] === next[i]) continue;
+    if (JSON.stringify(prev[i], withoutLeads) !== JSON.stringify(next[i], withoutLeads)) return null;
+    changed.push(i);
+  }
+  return changed;
+}
+
+const withoutLeads = (key: string, value: unknown) => (key === 'leadChanges' ? undefined : value);
+
+const sameItems = <T>(a: readonly T[], b: readonly T[]) => a.length === b.length && a.every((x, i) => x === b[i]);
+
+/** A stretch of the earlier netlist's edges [from, to), kept as they are (leads null) or replaced by `leads`. */
+interface EdgeRun {
+  from: number;
+  to: number;
+  leads: Edge[] | null;
+}
+
+/** The parts `plan` rewires from `prev` (lead changes only), with their new lead changes, or null. */
+function partsToRewire(prev: Netlist, plan: Plan): { part: number; changes: LeadChange[] }[] | null {
+  const old = prev.plan;
+  if (old === plan || plan.ksu !== old.ksu || !sameItems(old.adapters, plan.adapters)) return null;
+  if (!sameItems(old.cables, plan.cables)) return null;
+  const sets = leadEdits(old.sets, plan.sets);
+  const addOns = sets && leadEdits(old.addOns, plan.addOns);
+  if (!sets || !addOns) return null;
+  // in part order: sets come before add-ons
+  const rewire = [
+    ...sets.map((i) => ({ part: prev.sets[i].part, changes: plan.sets[i].leadChanges })),
+    ...addOns.map((i) => ({ part: 1 + prev.sets.length + i, changes: plan.addOns[i].leadChanges })),
+  ];
+  for (const { part } of rewire) {
+    const p = prev.parts[part];
+    if (!p.template || (p.kind !== 'set' && p.kind !== 'add-on')) return null;
+  }
+  return rewire;
+}
+
+/**
+ * Each rewired part's lead wires made again over prev's terminals (every terminal a lead lands on is there:
+ * wirePart made them all), as runs of prev's edges; `touched` gets the ends of every lead wire new or gone.
+ */
+function rewiredRuns(
+  prev: Netlist,
+  starts: Int32Array,
+  rewire: { part: number; changes: LeadChange[] }[],
+  touched: Uint8Array,
+): { runs: EdgeRun[]; starts: Int32Array; shift: number } {
+  const b = newBuilder(false);
+  b.terminals = prev.terminals;
+  b.names = prev.partTerminals.map((t) => t.names);
+  b.pinIds = prev.partTerminals.map((t) => t.pinIds);
+  const wires = prev.edges.length - prev.contacts.length;
+  const runs: EdgeRun[] = [];
+  const newStarts = starts.slice();
+  let from = 0;
+  let shift = 0;
+  for (const { part, changes } of rewire) {
+    const p = prev.parts[part];
+    const start = starts[part];
+    let end = start;
+    while (end < wires && prev.edgeKind[end] === KIND_LEAD && prev.terminals[prev.edgeA[end]].part === part) end++;
+    b.edges = [];
+    wireLeads(b, p, p.template!, changes);
+    if (b.terminals.length !== prev.terminals.length) throw new Error(`rewiring ${p.id} made a terminal`);
+    // a lead wired as before is the wire object it was (what findings kept across edits look for)
+    const was = new Map<string, Edge>();
+    for (let k = start; k < end; k++) was.set(`${prev.edgeA[k]}|${prev.edgeB[k]}|${prev.edges[k].label}`, prev.edges[k]);
+    const kept = new Set<Edge>();
+    const leads = b.edges.map((e) => {
+      const same = was.get(`${e.a}|${e.b}|${e.label}`);
+      if (same) kept.add(same);
+      else touched[e.a] = touched[e.b] = 1;
+      return same ?? e;
+    });
+    for (let k = start; k < end; k++) if (!kept.has(prev.edges[k])) touched[prev.edgeA[k]] = touched[prev.edgeB[k]] = 1;
+    runs.push({ from, to: start, leads: null }, { from: start, to: end, leads });
+    const delta = leads.length - (end - start);
+    for (let q = part + 1; q < newStarts.length; q++) if (starts[q] >= 0) newStarts[q] += delta;
+    shift += delta;
+    from = end;
+  }
+  runs.push({ from, to: prev.edges.length, leads: null });
+  return { runs, starts: newStarts, shift };
+}
+
+/** prev's edges with the runs replaced, as objects and flat arrays, and where each of prev's edges went. */
+function splicedEdges(
+  prev: Netlist,
+  runs: readonly EdgeRun[],
+  shift: number,
+): { edges: Edge[]; flat: FlatEdges; edgeIndex: Int32Array } {
+  const flat = newFlat(prev.edges.length + shift);
+  const edgeIndex = new Int32Array(prev.edges.length);
+  const pieces: Edge[][] = [];
+  let at = 0;
+  for (const { from, to, leads } of runs) {
+    if (leads) {
+      flatInto(flat, at, leads, 0, leads.length);
+      for (let k = from; k < to; k++) {
+        const i = leads.indexOf(prev.edges[k]);
+        edgeIndex[k] = i < 0 ? -1 : at + i;
+      }
+      pieces.push(leads);
+      at += leads.length;
+      continue;
+    }
+    for (let k = from; k < to; k++) edgeIndex[k] = at + k - from;
+    flat.edgeA.set(prev.edgeA.subarray(from, to), at);
+    flat.edgeB.set(prev.edgeB.subarray(from, to), at);
+    flat.edgeKind.set(prev.edgeKind.subarray(from, to), at);
+    flat.edgeContact.set(prev.edgeContact.subarray(from, to), at);
+    pieces.push(prev.edges.slice(from, to));
+    at += to - from;
+  }
+  return { edges: ([] as Edge[]).concat(...pieces), flat, edgeIndex };
+}
+
+/**
+ * staticComponents after a rewiring, solving again only the static nets with a touched terminal: the others keep
+ * their wires, and so their roots. A net's root depends only on the unions of its own wires, in edge order, so
+ * this gives staticComponents' roots exactly. New wires have touched ends, so they join only such nets.
+ */
+function restaticed(prev: Netlist, flat: FlatEdges, wires: number, touched: Uint8Array): Int32Array {
+  const n = prev.terminals.length;
+  const was = prev.staticRoot;
+  const root = was.slice();
+  const redo = new Uint8Array(n);
+  let any = false;
+  for (let t = 0; t < n; t++) {
+    if (!touched[t]) continue;
+    redo[was[t]] = 1;
+    any = true;
+  }
+  if (!any) return root;
+  for (let t = 0; t < n; t++) if (redo[was[t]]) root[t] = t;
+  const { edgeA, edgeB } = flat;
+  for (let k = 0; k < wires; k++) {
+    if (!redo[was[edgeA[k]]]) continue;
+    const ra = findRoot(root, edgeA[k]);
+    const rb = findRoot(root, edgeB[k]);
+    if (ra !== rb) root[ra] = rb;
+  }
+  for (let t = 0; t < n; t++) if (redo[was[t]]) root[t] = findRoot(root, t);
+  return root;
+}
+
+/**
+ * The netlist of a plan that differs from `prev`'s only in some sets' or add-ons' lead changes (what a lead edit
+ * on the Bench and every cure candidate make), or null for any other edit. Such a plan has every part, terminal,
+ * contact and load of `prev`, and every wire but those parts' leads: their lead wires (the first wires of each
+ * part, see wirePart) are made again and spliced in, the other wires are `prev`'s own objects, and the static
+ * nets are solved again. The result equals buildNetlist's (tests/engine/netlist-cache.test.ts).
+ */
+function rewiredFrom(prev: Netlist, plan: Plan): Netlist | null {
+  const starts = wireStarts.get(prev);
+  const rewire = starts && partsToRewire(prev, plan);
+  if (!starts || !rewire) return null;
+  const touched = new Uint8Array(prev.terminals.length);
+  const { runs, starts: newStarts, shift } = rewiredRuns(prev, starts, rewire, touched);
+  const { edges, flat, edgeIndex } = splicedEdges(prev, runs, shift);
+  const staticRoot = restaticed(prev, flat, prev.edges.length - prev.contacts.length + shift, touched);
+  const { dense, denseCount, hot } = denseComponents(prev, prev, staticRoot);
+  const nl = assembled({
+    plan,
+    parts: prev.parts,
+    partById: prev.partById,
+    sets: prev.sets,
+    setById: prev.setById,
+    lines: prev.lines,
+    stations: prev.stations,
+    gnd: prev.gnd,
+    terminals: prev.terminals,
+    edges,
+    ...flat,
+    contacts: prev.contacts,
+    elements: prev.elements,
+    staticRoot,
+    dense,
+    denseCount,
+    hot,
+    work: new Int32Array(denseCount),
+    partTerminals: prev.partTerminals,
+  });
+  wireStarts.set(nl, newStarts);
+  // one step back only: prev lets go of the netlist before it, so a run of edits keeps two netlists, not all
+  const before = rewirings.get(prev);
+  if (before) before.prev = null;
+  rewirings.set(nl, { prev, touched, edgeIndex });
+  return nl;
+}
+
+/**
+ * How a netlist was made from the one before it by rewiring some parts' leads (rewiredFrom): for what is kept
+ * across an edit (paths.ts trees, the wiring rule's paths). Every terminal, contact and load is as it was; a wire
+ * is as it was, at edgeIndex's place, unless one of its ends is `touched`. So whatever was read off the earlier
+ * netlist over untouched terminals only is the same on this one, wire indices mapped.
+ */
+export interface Rewiring {
+  /** The earlier netlist, until a netlist is rewired from this one. */
+  prev: Netlist | null;
+  /** Per terminal: 1 when it is an end of a lead wire the edit added or took away. */
+  touched: Uint8Array;
+  /** The earlier netlist's wire index → this one's (-1: gone). */
+  edgeIndex: Int32Array;
+}
+
+const rewirings = new WeakMap<Netlist, Rewiring>();
+
+/** How `nl` was rewired from the netlist before it, when it was. */
+export function rewiringOf(nl: Netlist): Rewiring | undefined {
+  return rewirings.get(nl);
 }

@@ -1,21 +1,38 @@
 /**
- * Findings kept per netlist and made again only when what they say changes: a rule names everything its finding's
- * text, sets, lines and path depend on (small integers, and the path object, which paths.ts keeps while it holds),
- * and gets the finding it made last time for the same. Findings are never changed once made, so evaluations may
- * share them (as every state already shares the wiring findings).
+ * Findings kept and made again only when what they say changes: a rule names everything its finding's text, sets,
+ * lines and path depend on (small integers, and the path), and gets the finding it made last time for the same.
+ * Findings are never changed once made, so evaluations may share them (as every state already shares the wiring
+ * findings).
+ *
+ * Kept across netlists too: an edit that rewires leads or cables makes a new netlist whose parts, names, loads and
+ * contacts are all as they were (the memo's `layout`). A key then still means what it meant, and a path means the
+ * same when it runs over the same terminal and wire objects (cached part wirings push the same objects again,
+ * see netlist.ts); a path over anything the edit rewired is not found, and its finding is made again.
  */
-import type { Netlist } from '../model/netlist';
+import { perNetlist, rewiringOf, type Edge, type Netlist, type TerminalInfo } from '../model/netlist';
 import type { Finding, FindingCode } from './evaluation.types';
 import type { TerminalPath } from './paths';
 
 interface Entry {
+  /** The path it was last found with, and that path's terminal and wire objects (null: no path). */
   path: TerminalPath | null;
+  terminals: readonly TerminalInfo[] | null;
+  wires: readonly Edge[] | null;
   finding: Finding;
+}
+
+/** The findings and list ids of every netlist with one layout. */
+interface Store {
+  byCode: Map<FindingCode, Map<number, Entry>>;
+  lists: { root: ListNode; size: number };
 }
 
 /** One code's findings on one netlist: a rule fetches it once per state, then a finding it has costs one look-up. */
 export class FindingMemo {
-  private readonly entries = new Map<number, Entry>();
+  constructor(
+    private readonly nl: Netlist,
+    private readonly entries: Map<number, Entry>,
+  ) {}
 
   /**
    * The finding kept for `key` and `path`, if any. `key` must tell apart every value the finding depends on
@@ -23,32 +40,89 @@ export class FindingMemo {
    */
   get(key: number, path: TerminalPath | null): Finding | undefined {
     const hit = this.entries.get(path ? key * 2 + 1 : key * 2);
-    return hit !== undefined && hit.path === path ? hit.finding : undefined;
+    if (hit === undefined) return undefined;
+    if (hit.path === path) return hit.finding;
+    if (path === null || !sameObjects(this.nl, path, hit)) return undefined;
+    // the same conductors by another path object (another netlist or tree): found by identity from now on
+    hit.path = path;
+    return hit.finding;
   }
 
   /** Keeps `finding` for `key` and `path` (as get finds it) and returns it. */
   keep(key: number, path: TerminalPath | null, finding: Finding): Finding {
     if (this.entries.size >= MEMO_MAX) this.entries.clear();
+    const { terminals, edges } = this.nl;
     // with and without a path apart: an evaluation with paths and one without each keep theirs
-    this.entries.set(path ? key * 2 + 1 : key * 2, { path, finding });
+    this.entries.set(path ? key * 2 + 1 : key * 2, {
+      path,
+      terminals: path && path.terms.map((t) => terminals[t]),
+      wires: path && path.edges.map((e) => edges[e]),
+      finding,
+    });
     return finding;
-  }
-
-  clear(): void {
-    this.entries.clear();
   }
 }
 
-const memos = new WeakMap<Netlist, Map<FindingCode, FindingMemo>>();
-/** Per netlist and code; past it the memo starts again (a long sweep over a large plan). */
+/** Whether `path` on `nl` runs over the terminal and wire objects the entry's path ran over. */
+function sameObjects(nl: Netlist, path: TerminalPath, hit: Entry): boolean {
+  const { terminals, wires } = hit;
+  if (!terminals || !wires || terminals.length !== path.terms.length) return false;
+  for (let i = 0; i < terminals.length; i++) if (nl.terminals[path.terms[i]] !== terminals[i]) return false;
+  for (let i = 0; i < wires.length; i++) if (nl.edges[path.edges[i]] !== wires[i]) return false;
+  return true;
+}
+
+/**
+ * Everything of a netlist that a finding may read besides its path and its state's nets: parts (ids, names,
+ * templates, who serves whom), the sets' stations, lines, stations, loads (ringer straps among them) and terminal
+ * ids; contacts follow from the templates and owners. Netlists that differ only in wires share one store.
+ */
+const layoutOf = perNetlist((nl): string => {
+  // a netlist rewired from another has its parts, terminals, loads and contacts (model/netlist.ts rewiredFrom)
+  const before = rewiringOf(nl)?.prev;
+  if (before) return layoutOf(before);
+  const parts = nl.parts.map(
+    (p) => `${p.kind}|${p.id}|${p.name}|${p.template?.id ?? ''}|${p.setIndex}|${p.servesSet}`,
+  );
+  const sets = nl.sets.map((s) => `${s.station ?? ''}|${s.addOns.join(',')}`);
+  const lines = nl.lines.map((l) => `${l.number}|${l.directoryNumber}|${l.t}|${l.r}|${l.a}|${l.l}`);
+  const stations = nl.stations.map((s) => `${s.id}|${s.code}|${s.t}|${s.r}`);
+  const loads = nl.elements.map((e) => `${e.kind}|${e.a}|${e.b}|${e.owner}|${e.line ?? ''}|${e.key ?? ''}`);
+  const contacts = `${nl.contacts.length}|${nl.terminals.length}|${nl.gnd}`;
+  return [parts.join('\n'), sets.join('\n'), lines.join('\n'), stations.join('\n'), loads.join('\n'), contacts].join(
+    '\n#\n',
+  );
+});
+
+/** Stores by layout, least recently used first (an editing session moves between a few layouts). */
+const stores = new Map<string, Store>();
+const STORES_MAX = 8;
+
+/** Per netlist, its memos by code and its store (looked up by layout once per netlist). */
+const memos = perNetlist((nl): { store: Store; byCode: Map<FindingCode, FindingMemo> } => {
+  const layout = layoutOf(nl);
+  let store = stores.get(layout);
+  if (store) stores.delete(layout);
+  else {
+    store = { byCode: new Map(), lists: { root: { id: -1, next: null }, size: 0 } };
+    if (stores.size >= STORES_MAX) stores.delete(stores.keys().next().value!);
+  }
+  stores.set(layout, store);
+  return { store, byCode: new Map() };
+});
+
+/** Per layout and code; past it the memo starts again (a long sweep over a large plan). */
 const MEMO_MAX = 1 << 16;
 
 /** The memo of `code`'s findings on `nl`. */
 export function findingMemo(nl: Netlist, code: FindingCode): FindingMemo {
-  let byCode = memos.get(nl);
-  if (!byCode) memos.set(nl, (byCode = new Map()));
+  const { store, byCode } = memos(nl);
   let memo = byCode.get(code);
-  if (!memo) byCode.set(code, (memo = new FindingMemo()));
+  if (!memo) {
+    let entries = store.byCode.get(code);
+    if (!entries) store.byCode.set(code, (entries = new Map()));
+    byCode.set(code, (memo = new FindingMemo(nl, entries)));
+  }
   return memo;
 }
 
@@ -82,13 +156,10 @@ interface ListNode {
   next: Map<number, ListNode> | null;
 }
 
-/** Small integer ids of lists of small integers, per netlist, as a trie (a known list costs no allocation). */
-const listIds = new WeakMap<Netlist, { root: ListNode; size: number }>();
-
-/** Small integer id of a list of small integers (for memo keys that name a list of sets). */
+/** Small integer id of a list of small integers (for memo keys that name a list of sets), per layout, as a trie. */
 export function listId(nl: Netlist, xs: readonly number[]): number {
-  let ids = listIds.get(nl);
-  if (!ids) listIds.set(nl, (ids = { root: { id: -1, next: null }, size: 0 }));
+  const { store } = memos(nl);
+  const ids = store.lists;
   let node = ids.root;
   for (let i = 0; i < xs.length; i++) {
     let child = node.next?.get(xs[i]);
@@ -101,8 +172,8 @@ export function listId(nl: Netlist, xs: readonly number[]): number {
   if (node.id < 0) {
     if (ids.size >= MEMO_MAX) {
       // ids are about to mean other lists: forget them and the findings kept under them
-      listIds.delete(nl);
-      memos.get(nl)?.forEach((m) => m.clear());
+      store.lists = { root: { id: -1, next: null }, size: 0 };
+      store.byCode.forEach((entries) => entries.clear());
       return listId(nl, xs);
     }
     node.id = ids.size++;

@@ -1,6 +1,6 @@
 /** Conductor paths: breadth-first search over wires and (optionally) the contacts closed in one state. */
 import { pairColour } from '../document/cable-code';
-import { perNetlist, type Edge, type Netlist, type PartInfo, type TerminalInfo } from '../model/netlist';
+import { perNetlist, rewiringOf, type Edge, type Netlist, type PartInfo, type TerminalInfo } from '../model/netlist';
 import { contactClosed, type Mech } from '../model/nets';
 import type { LeadSpec } from '../templates/template.types';
 import type { Hop } from './evaluation.types';
@@ -170,6 +170,32 @@ const TREES_PER_ROOT = 4;
 /** Roots kept per netlist (least recently used go first). */
 const ROOTS_MAX = 256;
 
+/**
+ * The trees of the netlist an edit was made on that still hold after it: those over terminals the edit left as
+ * they were (Rewiring), their wire indices mapped. Their paths are walked again (a path names wires by index).
+ */
+function carriedTrees(nl: Netlist): Map<number, Tree[]> {
+  const carried = new Map<number, Tree[]>();
+  const rewiring = rewiringOf(nl);
+  const before = rewiring?.prev;
+  const kept = before && treeCache.get(before);
+  if (!rewiring || !kept) return carried;
+  const { touched, edgeIndex } = rewiring;
+  for (const [root, trees] of kept) {
+    const list: Tree[] = [];
+    for (const tree of trees) {
+      const { queue } = tree;
+      let clear = true;
+      for (let k = 0; k < queue.length && clear; k++) clear = touched[queue[k]] === 0;
+      if (!clear) continue;
+      const prevEdge = tree.prevEdge.map((e) => (e < 0 ? e : edgeIndex[e]));
+      list.push({ ...tree, prevEdge, paths: new Map() });
+    }
+    if (list.length) carried.set(root, list);
+  }
+  return carried;
+}
+
 let growQueue = new Int32Array(0);
 const grownContacts: number[] = [];
 /** Per contact: the last grow that listed it (stamps, so that a tree lists each contact once). */
@@ -300,7 +326,7 @@ export class PathFinder {
   /** The tree rooted at `root` in this state: a kept one that still holds, else grown now and kept. */
   private treeFrom(root: number): Tree {
     let byRoot = treeCache.get(this.nl);
-    if (!byRoot) treeCache.set(this.nl, (byRoot = new Map()));
+    if (!byRoot) treeCache.set(this.nl, (byRoot = carriedTrees(this.nl)));
     const kept = byRoot.get(root);
     if (kept) {
       byRoot.delete(root);

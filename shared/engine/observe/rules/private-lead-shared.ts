@@ -8,6 +8,9 @@ import {
   KIND_CABLE,
   KIND_CROSS_CONNECT,
   KIND_LEAD,
+  findRoot,
+  perNetlist,
+  rewiringOf,
   type Edge,
   type Netlist,
   type PartInfo,
@@ -41,27 +44,41 @@ function partners(a: PartInfo, b: PartInfo): boolean {
 /** Scratch for collect (evaluation is synchronous), grown to the largest netlist seen. */
 let buffer = new Int32Array(0);
 
+/**
+ * Terminal → its conductor through cables and adapters only (a root terminal id). A netlist rewired from another
+ * (lead changes only: model/netlist.ts rewiredFrom) has that one's cables and adapters, so their conductors.
+ */
+const conductors = perNetlist((nl): Int32Array => {
+  const before = rewiringOf(nl)?.prev;
+  if (before) return conductors(before);
+  const n = nl.terminals.length;
+  const parent = new Int32Array(n);
+  for (let i = 0; i < n; i++) parent[i] = i;
+  const { edgeA, edgeB, edgeKind } = nl;
+  for (let k = 0; k < edgeA.length; k++) {
+    const kind = edgeKind[k];
+    if (kind !== KIND_CABLE && kind !== KIND_BRIDGE) continue;
+    const ra = findRoot(parent, edgeA[k]);
+    const rb = findRoot(parent, edgeB[k]);
+    if (ra !== rb) parent[ra] = rb;
+  }
+  for (let i = 0; i < n; i++) parent[i] = findRoot(parent, i);
+  return parent;
+});
+
 function collect(nl: Netlist): Shared[] {
   const { terminals, edges, parts } = nl;
   const n = terminals.length;
   const m = nl.edgeA.length;
-  if (buffer.length < 3 * n + 2 * m) buffer = new Int32Array(3 * n + 2 * m);
-  const parent = buffer.subarray(0, n);
-  for (let i = 0; i < n; i++) parent[i] = i;
-  const find = (x: number): number => {
-    while (parent[x] !== x) x = parent[x] = parent[parent[x]];
-    return x;
-  };
+  if (buffer.length < 2 * n + 2 * m) buffer = new Int32Array(2 * n + 2 * m);
+  const root = conductors(nl);
+  const find = (x: number): number => root[x];
   const { edgeA, edgeB, edgeKind } = nl;
-  for (let k = 0; k < m; k++) {
-    const kind = edgeKind[k];
-    if (kind === KIND_CABLE || kind === KIND_BRIDGE) parent[find(edgeA[k])] = find(edgeB[k]);
-  }
   // Per conductor (root): the part terminals wired to it, in edge order, as a linked list over the wired edges.
-  const first = buffer.subarray(n, 2 * n).fill(-1);
-  const last = buffer.subarray(2 * n, 3 * n);
-  const next = buffer.subarray(3 * n, 3 * n + m);
-  const attachedTerm = buffer.subarray(3 * n + m, 3 * n + 2 * m);
+  const first = buffer.subarray(0, n).fill(-1);
+  const last = buffer.subarray(n, 2 * n);
+  const next = buffer.subarray(2 * n, 2 * n + m);
+  const attachedTerm = buffer.subarray(2 * n + m, 2 * n + 2 * m);
   let attached = 0;
   const privateLeads: number[] = [];
   for (let k = 0; k < m; k++) {
@@ -110,7 +127,24 @@ interface Made {
   terms: readonly number[];
   terminals: readonly TerminalInfo[];
   edges: readonly Edge[];
+  /** The netlist it was last given for (its serial number). */
+  on: number;
 }
+
+/** A number per netlist, for telling which netlist a kept finding was last given for. */
+let serials = 0;
+const serialOf = perNetlist(() => ++serials);
+
+/**
+ * The static nets (roots) that an edit from the netlist before rewired: a net with none of the terminals the edit
+ * touched has the terminals and wires it had, so a path traced in it is the one traced before.
+ */
+const touchedNets = perNetlist((nl): Set<number> => {
+  const touched = rewiringOf(nl)?.touched;
+  const roots = new Set<number>();
+  if (touched) for (let t = 0; t < touched.length; t++) if (touched[t]) roots.add(nl.staticRoot[t]);
+  return roots;
+});
 
 /**
  * Findings with paths, kept across netlists by their ends and pairs. A finding says only what the path's terminal
@@ -122,18 +156,25 @@ const made = new Map<number, Made>();
 const MADE_MAX = 4096;
 
 function build(nl: Netlist, withPaths: boolean): Finding[] {
+  const before = withPaths ? rewiringOf(nl)?.prev : undefined;
+  const serial = serialOf(nl);
   return collect(nl).map((s) => {
     const pairs = s.pairs.sort((a, b) => a - b);
     if (!withPaths) return finding(nl, s, pairs, null);
-    const p = findPath(nl, s.from, s.to, null);
-    if (!p) return finding(nl, s, pairs, null);
     const key = s.from * nl.terminals.length + s.to;
     const known = made.get(key);
-    if (known && sameList(known.pairs, pairs) && samePath(nl, p, known)) {
+    const again = () => {
       made.delete(key);
-      made.set(key, known);
-      return known.finding;
-    }
+      made.set(key, known!);
+      known!.on = serial;
+      return known!.finding;
+    };
+    // given for the netlist this one was rewired from, on a net the edit left alone: the same path, not traced
+    if (known && before && known.on === serialOf(before) && !touchedNets(nl).has(nl.staticRoot[s.from]))
+      if (sameList(known.pairs, pairs)) return again();
+    const p = findPath(nl, s.from, s.to, null);
+    if (!p) return finding(nl, s, pairs, null);
+    if (known && sameList(known.pairs, pairs) && samePath(nl, p, known)) return again();
     const f = finding(nl, s, pairs, p);
     if (made.size >= MADE_MAX) made.delete(made.keys().next().value!);
     made.set(key, {
@@ -142,6 +183,7 @@ function build(nl: Netlist, withPaths: boolean): Finding[] {
       terms: p.terms,
       terminals: p.terms.map((t) => nl.terminals[t]),
       edges: p.edges.map((e) => nl.edges[e]),
+      on: serial,
     });
     return f;
   });
