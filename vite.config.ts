@@ -3,6 +3,7 @@ import { defineConfig } from 'vitest/config';
 import vue from '@vitejs/plugin-vue';
 
 const apiPort = Number(process.env.PORT ?? 3000);
+const sharedDir = fileURLToPath(new URL('./shared/', import.meta.url));
 
 export default defineConfig({
   plugins: [vue({ features: { optionsAPI: false } })],
@@ -23,6 +24,10 @@ export default defineConfig({
     // Every browser the product supports preloads modules itself; the polyfill would only weigh down the entry.
     modulePreload: { polyfill: false },
     rolldownOptions: {
+      // shared/ holds declarations only: no module there runs anything on import that another module relies on.
+      // Said so, an import of the engine's index brings only the parts it uses, not the whole engine (the
+      // search among them, which the Bench runs in its worker) into every page that reads a schema.
+      treeshake: { moduleSideEffects: (id) => (id.startsWith(sharedDir) ? false : undefined) },
       output: {
         codeSplitting: {
           // Only libraries that load together share a chunk. naive-ui is left to the per-page split: one

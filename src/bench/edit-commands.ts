@@ -4,7 +4,7 @@
  */
 import type { CureResult, Plan, PortRef } from '@shared/engine';
 import * as edits from './plan-edits';
-import type { EditOutcome, Position } from './plan-edits';
+import type { CureApplier, EditOutcome, Position } from './plan-edits';
 import type { EditResult } from './edit-refusal';
 
 export function editCommands(
@@ -36,7 +36,8 @@ export function editCommands(
   const setPortCount = (count: number) => run(edits.setPortCount(current(), count));
   const addStation = (code: string, label: string) => run(edits.addStation(current(), code, label));
   const removeStation = (stationId: string) => run(edits.removeStation(current(), stationId));
-  const applyCure = (result: CureResult) => run(edits.applyCure(current(), result));
+  const applyCure = (result: CureResult, withCure: CureApplier) =>
+    run(edits.applyCure(current(), result, withCure));
 
   function duplicatePart(id: string): { ok: true; id: string } | { ok: false; reason: string } {
     const outcome = edits.duplicatePart(current(), id);

@@ -12,6 +12,9 @@ export interface Size {
 }
 export type Rect = Point & Size;
 
+/** A part not yet measured on the canvas is laid out at about the size a set node has. */
+export const DEFAULT_PART_SIZE: Size = { width: 240, height: 180 };
+
 export interface PlacementOptions {
   /** Positions snap to this grid (the canvas's snap grid). */
   grid?: number;

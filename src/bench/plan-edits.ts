@@ -4,7 +4,6 @@
  * Each edit keeps the document one the engine's `validatePlan` accepts when it was one before.
  */
 import {
-  applyCure as engineApplyCure,
   canConnect,
   crossReferenceIssues,
   getTemplate,
@@ -425,13 +424,19 @@ export function removeStation(plan: Plan, stationId: string): EditOutcome {
   };
 }
 
+/**
+ * The engine's `applyCure`. The Cure panel passes it in: it lives with the search, which the Bench's first load
+ * leaves out (the search itself runs in the worker).
+ */
+export type CureApplier = (plan: Plan, result: CureResult) => Plan;
+
 /** Applying a cure is one edit, like any other. */
-export function applyCure(plan: Plan, result: CureResult): EditOutcome {
+export function applyCure(plan: Plan, result: CureResult, withCure: CureApplier): EditOutcome {
   const n = result.changes.length;
   return {
     ok: true,
     label: `Apply cure (${n} change${n === 1 ? '' : 's'})`,
-    plan: engineApplyCure(plan, result),
+    plan: withCure(plan, result),
   };
 }
 

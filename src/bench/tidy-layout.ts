@@ -7,7 +7,7 @@
  */
 import type { ElkExtendedEdge, ElkNode } from 'elkjs/lib/elk-api';
 import { getTemplate, ksuPortName, type Plan } from '@shared/engine';
-import type { Point, Size } from './placement';
+import { DEFAULT_PART_SIZE, type Point, type Size } from './placement';
 
 /** The part of ELK's API this needs (`new ELK()` from `elkjs/lib/elk.bundled.js` has it). */
 export interface ElkEngine {
@@ -19,9 +19,6 @@ export interface TidyLayout {
   /** Orthogonal route of each cable, from its plug end to its jack end, in drawing coordinates. */
   routes: Record<string, Point[]>;
 }
-
-/** A part not yet measured on the canvas is laid out at about the size a set node has. */
-export const DEFAULT_PART_SIZE: Size = { width: 240, height: 180 };
 
 const LAYOUT_OPTIONS = {
   'elk.algorithm': 'layered',

@@ -9,9 +9,8 @@ import type { SimAction } from '@shared/engine';
 import { useBenchStore } from '@/stores/bench.store';
 import { planToEdges, planToNodes } from '@/components/bench/nodes/index';
 import { PART_DRAG_TYPE, type PartRequest } from '@/components/bench/parts-tray';
-import { placePart, type Point, type Rect, type Size } from '@/bench/placement';
+import { DEFAULT_PART_SIZE, placePart, type Point, type Rect, type Size } from '@/bench/placement';
 import { spliceAddOn } from '@/bench/plan-edits';
-import { DEFAULT_PART_SIZE } from '@/bench/tidy-layout';
 import { tierOf } from '@/components/bench/canvas-view';
 import { FLOW_ID, tidyRoutes } from './use-tidy';
 

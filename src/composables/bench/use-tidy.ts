@@ -1,22 +1,25 @@
 /**
- * Tidy: lay the installation out automatically as one undoable step. ELK is loaded only when Tidy is first used,
- * so it stays out of the first bundle. The routes it gives the cables are kept here for the canvas to draw while
- * the parts stay where Tidy put them (a cable edge falls back to its own route once an end moves).
+ * Tidy: lay the installation out automatically as one undoable step. ELK and the layout over it are loaded only
+ * when Tidy is first used, so they stay out of the first bundle. The routes it gives the cables are kept here for
+ * the canvas to draw while the parts stay where Tidy put them (a cable edge falls back to its own route once an
+ * end moves).
  */
 import { ref, shallowRef } from 'vue';
 import { useVueFlow } from '@vue-flow/core';
 import { useBenchStore, type EditResult } from '@/stores/bench.store';
 import { moveParts } from '@/bench/plan-edits';
 import type { Point } from '@/bench/placement';
-import { tidyLayout, type ElkEngine } from '@/bench/tidy-layout';
+import type { ElkEngine, tidyLayout } from '@/bench/tidy-layout';
 
 /** The last Tidy's cable routes, by cable id, in drawing coordinates. */
 export const tidyRoutes = shallowRef<Record<string, Point[]>>({});
 
-let engine: Promise<ElkEngine> | null = null;
-function loadElk(): Promise<ElkEngine> {
-  engine ??= import('elkjs/lib/elk.bundled.js').then(({ default: ELK }) => new ELK());
-  return engine;
+let loaded: Promise<{ elk: ElkEngine; layOut: typeof tidyLayout }> | null = null;
+function loadTidy(): Promise<{ elk: ElkEngine; layOut: typeof tidyLayout }> {
+  loaded ??= Promise.all([import('elkjs/lib/elk.bundled.js'), import('@/bench/tidy-layout')]).then(
+    ([{ default: ELK }, { tidyLayout: layOut }]) => ({ elk: new ELK(), layOut }),
+  );
+  return loaded;
 }
 
 /** The canvas's vue-flow id: Tidy reads the drawn sizes of the parts from it. */
@@ -35,7 +38,8 @@ export function useTidy() {
     if (!plan) return { ok: false, reason: 'No plan is open.' };
     busy.value = true;
     try {
-      const layout = await tidyLayout(await loadElk(), plan, (id) => {
+      const { elk, layOut } = await loadTidy();
+      const layout = await layOut(elk, plan, (id) => {
         const size = flow.findNode(id)?.dimensions;
         return size?.width && size.height ? { width: size.width, height: size.height } : undefined;
       });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { createPinia, setActivePinia } from 'pinia';
-import { PlanSchema, cure, sweep } from '@shared/engine';
+import { PlanSchema, applyCure, cure, sweep } from '@shared/engine';
 import demo from '@shared/engine/examples/demo-plan.json';
 import { useBenchStore } from '@/stores/bench.store';
 import { viewerReason } from '@/composables/bench/use-bench-plan';
@@ -38,7 +38,7 @@ describe('the Bench store with a plan opened to view', () => {
     expect(sweep(before).findings.length).toBeGreaterThan(0);
     const found = cure(before);
     expect(found.ok).toBe(true);
-    expect(store.applyCure(found)).toEqual({ ok: false, reason: REASON });
+    expect(store.applyCure(found, applyCure)).toEqual({ ok: false, reason: REASON });
     expect(store.plan).toBe(before);
     expect(store.revision).toBe(0);
   });

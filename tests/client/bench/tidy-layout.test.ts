@@ -5,8 +5,8 @@ import demo from '@shared/engine/examples/demo-plan.json';
 import intercom from '@shared/engine/examples/intercom.json';
 import sixAndTen from '@shared/engine/examples/six-and-ten.json';
 import twoSet from '@shared/engine/examples/two-set.json';
-import { overlaps } from '@/bench/placement';
-import { DEFAULT_PART_SIZE, tidyLayout } from '@/bench/tidy-layout';
+import { DEFAULT_PART_SIZE, overlaps } from '@/bench/placement';
+import { tidyLayout } from '@/bench/tidy-layout';
 import { twoSetPlan } from './bench-fixture';
 
 const elk = new ELK();
