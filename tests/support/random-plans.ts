@@ -97,3 +97,14 @@ export function buildPlan(spec: PlanSpec): Plan {
   }
   return plan;
 }
+
+/**
+ * The fast-check seed of a property over random sweeps: fixed by default, so a run's length does not depend on
+ * the clock (some seeds draw plans whose reference sweeps take many minutes); SWEEP_SEED explores others. The
+ * seed is printed so that a failing run can be repeated.
+ */
+export function propertySeed(what: string): number {
+  const seed = Number(process.env.SWEEP_SEED ?? 11);
+  console.log(`${what}: fast-check seed ${seed} (SWEEP_SEED=${seed} repeats it)`);
+  return seed;
+}

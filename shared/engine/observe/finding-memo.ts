@@ -9,15 +9,14 @@
  * same when it runs over the same terminal and wire objects (cached part wirings push the same objects again,
  * see netlist.ts); a path over anything the edit rewired is not found, and its finding is made again.
  */
-import { perNetlist, rewiringOf, type Edge, type Netlist, type TerminalInfo } from '../model/netlist';
+import { perNetlist, rewiringOf, type Netlist } from '../model/netlist';
 import type { Finding, FindingCode } from './evaluation.types';
-import type { TerminalPath } from './paths';
+import { pathObjects, runsOver, type PathObjects, type TerminalPath } from './paths';
 
 interface Entry {
   /** The path it was last found with, and that path's terminal and wire objects (null: no path). */
   path: TerminalPath | null;
-  terminals: readonly TerminalInfo[] | null;
-  wires: readonly Edge[] | null;
+  objects: PathObjects | null;
   finding: Finding;
 }
 
@@ -42,7 +41,7 @@ export class FindingMemo {
     const hit = this.entries.get(path ? key * 2 + 1 : key * 2);
     if (hit === undefined) return undefined;
     if (hit.path === path) return hit.finding;
-    if (path === null || !sameObjects(this.nl, path, hit)) return undefined;
+    if (path === null || !hit.objects || !runsOver(this.nl, path, hit.objects)) return undefined;
     // the same conductors by another path object (another netlist or tree): found by identity from now on
     hit.path = path;
     return hit.finding;
@@ -51,25 +50,14 @@ export class FindingMemo {
   /** Keeps `finding` for `key` and `path` (as get finds it) and returns it. */
   keep(key: number, path: TerminalPath | null, finding: Finding): Finding {
     if (this.entries.size >= MEMO_MAX) this.entries.clear();
-    const { terminals, edges } = this.nl;
     // with and without a path apart: an evaluation with paths and one without each keep theirs
     this.entries.set(path ? key * 2 + 1 : key * 2, {
       path,
-      terminals: path && path.terms.map((t) => terminals[t]),
-      wires: path && path.edges.map((e) => edges[e]),
+      objects: path && pathObjects(this.nl, path),
       finding,
     });
     return finding;
   }
-}
-
-/** Whether `path` on `nl` runs over the terminal and wire objects the entry's path ran over. */
-function sameObjects(nl: Netlist, path: TerminalPath, hit: Entry): boolean {
-  const { terminals, wires } = hit;
-  if (!terminals || !wires || terminals.length !== path.terms.length) return false;
-  for (let i = 0; i < terminals.length; i++) if (nl.terminals[path.terms[i]] !== terminals[i]) return false;
-  for (let i = 0; i < wires.length; i++) if (nl.edges[path.edges[i]] !== wires[i]) return false;
-  return true;
 }
 
 /**

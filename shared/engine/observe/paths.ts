@@ -103,6 +103,29 @@ export interface TerminalPath {
   edges: number[];
 }
 
+/**
+ * The terminal and wire objects a path runs over. A netlist rewired from another keeps the objects of every part
+ * and cable the edit left alone (model/netlist.ts), so a kept path means the same on it when it runs over the same
+ * objects (runsOver).
+ */
+export interface PathObjects {
+  terminals: readonly TerminalInfo[];
+  wires: readonly Edge[];
+}
+
+export function pathObjects(nl: Netlist, p: TerminalPath): PathObjects {
+  return { terminals: p.terms.map((t) => nl.terminals[t]), wires: p.edges.map((e) => nl.edges[e]) };
+}
+
+/** Whether `p` on `nl` runs over exactly the terminal and wire objects `kept` (from pathObjects). */
+export function runsOver(nl: Netlist, p: TerminalPath, kept: PathObjects): boolean {
+  const { terminals, wires } = kept;
+  if (terminals.length !== p.terms.length || wires.length !== p.edges.length) return false;
+  for (let i = 0; i < terminals.length; i++) if (nl.terminals[p.terms[i]] !== terminals[i]) return false;
+  for (let i = 0; i < wires.length; i++) if (nl.edges[p.edges[i]] !== wires[i]) return false;
+  return true;
+}
+
 /** Shortest conductor path between two terminals; mech null = wires only (no contacts). */
 export function findPath(nl: Netlist, from: number, to: number, mech: Mech | null): TerminalPath | null {
   const adj = adjacency(nl);

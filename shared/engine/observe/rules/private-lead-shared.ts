@@ -11,13 +11,20 @@ import {
   findRoot,
   perNetlist,
   rewiringOf,
-  type Edge,
   type Netlist,
   type PartInfo,
-  type TerminalInfo,
 } from '../../model/netlist';
 import type { Finding } from '../evaluation.types';
-import { findPath, firstCrossing, crossingSentence, toHops, type TerminalPath } from '../paths';
+import {
+  crossingSentence,
+  findPath,
+  firstCrossing,
+  pathObjects,
+  runsOver,
+  toHops,
+  type PathObjects,
+  type TerminalPath,
+} from '../paths';
 import type { WiringRule } from '../rule.types';
 
 interface Shared {
@@ -124,9 +131,7 @@ function collect(nl: Netlist): Shared[] {
 interface Made {
   finding: Finding;
   pairs: readonly number[];
-  terms: readonly number[];
-  terminals: readonly TerminalInfo[];
-  edges: readonly Edge[];
+  objects: PathObjects;
   /** The netlist it was last given for (its serial number). */
   on: number;
 }
@@ -174,15 +179,13 @@ function build(nl: Netlist, withPaths: boolean): Finding[] {
       if (sameList(known.pairs, pairs)) return again();
     const p = findPath(nl, s.from, s.to, null);
     if (!p) return finding(nl, s, pairs, null);
-    if (known && sameList(known.pairs, pairs) && samePath(nl, p, known)) return again();
+    if (known && sameList(known.pairs, pairs) && runsOver(nl, p, known.objects)) return again();
     const f = finding(nl, s, pairs, p);
     if (made.size >= MADE_MAX) made.delete(made.keys().next().value!);
     made.set(key, {
       finding: f,
       pairs,
-      terms: p.terms,
-      terminals: p.terms.map((t) => nl.terminals[t]),
-      edges: p.edges.map((e) => nl.edges[e]),
+      objects: pathObjects(nl, p),
       on: serial,
     });
     return f;
@@ -192,14 +195,6 @@ function build(nl: Netlist, withPaths: boolean): Finding[] {
 function sameList(a: readonly number[], b: readonly number[]): boolean {
   if (a.length !== b.length) return false;
   for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
-  return true;
-}
-
-function samePath(nl: Netlist, p: TerminalPath, m: Made): boolean {
-  if (p.terms.length !== m.terms.length) return false;
-  for (let i = 0; i < p.terms.length; i++)
-    if (p.terms[i] !== m.terms[i] || nl.terminals[p.terms[i]] !== m.terminals[i]) return false;
-  for (let i = 0; i < p.edges.length; i++) if (nl.edges[p.edges[i]] !== m.edges[i]) return false;
   return true;
 }
 
