@@ -23,6 +23,13 @@ export const DEMO_DEMONSTRATION_TITLE = 'Why the bindery hears two dial tones';
 
 const DAY = 24 * 3600_000;
 
+/** A due date as an instructor sets one: that day at 17:00 (the server's local time), not at the minute of seeding. */
+function endOfClassDay(at: number): string {
+  const d = new Date(at);
+  d.setHours(17, 0, 0, 0);
+  return d.toISOString();
+}
+
 /** One recorded step: the actions from idle, the state they reach, and the first finding there when revealed. */
 function step(plan: Plan, actions: SimAction[], narration: string, reveal: boolean): DemonstrationStep {
   const state = actions.reduce((s, a) => applyAction(plan, s, a), initialState(plan));
@@ -76,7 +83,7 @@ export async function seedTraining(knex: Knex): Promise<void> {
         classId,
         kind: 'puzzle',
         itemId: puzzleId,
-        dueAt: new Date(now + (i + 1) * 7 * DAY).toISOString(),
+        dueAt: endOfClassDay(now + (i + 1) * 7 * DAY),
       });
   }
   let plan: Plan;

@@ -2,10 +2,18 @@ import type { MyClass } from '@shared/schemas/training.schema';
 
 type AssignmentStatus = MyClass['assignments'][number]['status'];
 
-/** Small wording helpers shared by the training pages. */
-export function dueText(dueAt: string | null): string {
+/** Standings in which a trainee still owes the work: past its due date, it is overdue. */
+const OWED: ReadonlySet<AssignmentStatus> = new Set(['not-started', 'working']);
+
+/**
+ * Small wording helpers shared by the training pages. With the trainee's status, an assignment still owed past its
+ * due date says so.
+ */
+export function dueText(dueAt: string | null, status?: AssignmentStatus, now = Date.now()): string {
   if (!dueAt) return 'No due date';
-  return `Due ${new Date(dueAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}`;
+  const due = new Date(dueAt);
+  const when = due.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+  return status && OWED.has(status) && due.getTime() < now ? `Overdue: was due ${when}` : `Due ${when}`;
 }
 
 export function minutesText(ms: number | null): string {
