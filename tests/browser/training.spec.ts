@@ -230,4 +230,33 @@ describe.skipIf(!chromiumPath)('training: classes, a fault hunt, the gradebook a
     expect(smallest).toBeGreaterThanOrEqual(16);
     await screenshot(page, 'training-projector');
   });
+  it('records a demonstration on its own copy of a plan, and asks before unsaved steps are lost', async () => {
+    const { page } = instructor;
+    await page.setViewportSize({ width: 1280, height: 800 });
+    // The Bench has the demo plan open; the builder still starts with no drawing until a plan is chosen.
+    await page.goto(`${baseUrl}/plans`);
+    await page.getByRole('link', { name: 'Harbour Street Bindery' }).first().click();
+    await page.locator('.vue-flow__node-set').first().waitFor();
+    await page.goto(`${baseUrl}/drills/demonstrations/new`);
+    await page.getByTestId('demo-stage-empty').waitFor();
+    expect(await page.locator('.vue-flow__node').count()).toBe(0);
+    expect(await page.getByTestId('record-step').count()).toBe(0);
+
+    await choose(page, page.getByTestId('demo-plan'), 'Harbour Street Bindery');
+    await page.locator('.vue-flow__node-set').first().waitFor();
+    await page.getByLabel('Narration').fill('Everything idle');
+    await page.getByTestId('record-step').click();
+    await page.locator('.builder__steps li', { hasText: 'Everything idle' }).waitFor();
+
+    // Leaving with a recorded step asks first; staying keeps it.
+    await page.getByRole('link', { name: 'Plans', exact: true }).click();
+    await page.getByRole('button', { name: 'Stay' }).click();
+    expect(page.url()).toContain('/drills/demonstrations/new');
+    expect(await page.locator('.builder__steps li').count()).toBe(1);
+
+    // Saving goes to the projector without asking.
+    await page.getByRole('button', { name: 'Save and present' }).click();
+    await page.getByTestId('projector-step').waitFor();
+    expect(await page.getByTestId('projector-step').innerText()).toBe('Step 1 of 1');
+  });
 });
