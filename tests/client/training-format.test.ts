@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { dueText, minutesText, statusText } from '../../src/components/training/training-format';
+import { byDueDate, dueText, minutesText, statusText } from '../../src/components/training/training-format';
 
 describe('training wording', () => {
   const due = '2026-03-10T17:00:00.000Z';
@@ -27,5 +27,17 @@ describe('training wording', () => {
     expect(minutesText(null)).toBe('—');
     expect(minutesText(1)).toBe('1 min');
     expect(minutesText(61_000)).toBe('2 min');
+  });
+
+  it('lists assignments soonest due first, undated ones last, ties in the order set', () => {
+    const items = [
+      { id: 'a', dueAt: '2026-12-18T17:00:00.000Z' },
+      { id: 'b', dueAt: null },
+      { id: 'c', dueAt: '2026-12-11T17:00:00.000Z' },
+      { id: 'd', dueAt: '2026-12-18T17:00:00.000Z' },
+      { id: 'e', dueAt: null },
+    ];
+    expect(byDueDate(items).map((x) => x.id)).toEqual(['c', 'a', 'd', 'b', 'e']);
+    expect(items[0].id).toBe('a'); // the list it was given is left as it was
   });
 });

@@ -1,3 +1,4 @@
+import { momentText } from '@/formats/dates';
 import type { MyClass } from '@shared/schemas/training.schema';
 
 type AssignmentStatus = MyClass['assignments'][number]['status'];
@@ -12,8 +13,14 @@ const OWED: ReadonlySet<AssignmentStatus> = new Set(['not-started', 'working']);
 export function dueText(dueAt: string | null, status?: AssignmentStatus, now = Date.now()): string {
   if (!dueAt) return 'No due date';
   const due = new Date(dueAt);
-  const when = due.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+  const when = momentText(due);
   return status && OWED.has(status) && due.getTime() < now ? `Overdue: was due ${when}` : `Due ${when}`;
+}
+
+/** Assignments soonest due first, those without a due date last; equal dates keep the order they were set in. */
+export function byDueDate<T extends { dueAt: string | null }>(items: readonly T[]): T[] {
+  const at = (x: T) => (x.dueAt ? Date.parse(x.dueAt) : Number.POSITIVE_INFINITY);
+  return [...items].sort((a, b) => at(a) - at(b) || 0);
 }
 
 export function minutesText(ms: number | null): string {

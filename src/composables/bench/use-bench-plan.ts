@@ -3,6 +3,7 @@
  * or shared with the user to view), an old revision of one (to view), or the demo installation for a guest (kept
  * in this tab, never saved). Coming back to the same plan keeps the store's drawing and undo history.
  */
+import { momentText } from '@/formats/dates';
 import { computed, watch } from 'vue';
 import { useQuery, useQueryClient } from '@tanstack/vue-query';
 import type { Plan } from '@shared/engine/documents';
@@ -44,7 +45,7 @@ export function viewerReason(ownerName: string): string {
 }
 
 export function revisionReason(revision: number, savedAt: string): string {
-  return `This is revision ${revision}, saved ${new Date(savedAt).toLocaleString()}, opened to look at. You can operate it, sweep it and look for a cure; duplicate it into your plans to work on it.`;
+  return `This is revision ${revision}, saved ${momentText(savedAt)}, opened to look at. You can operate it, sweep it and look for a cure; duplicate it into your plans to work on it.`;
 }
 
 export const fromRecord = (record: PlanRecord): OpenedPlan => ({

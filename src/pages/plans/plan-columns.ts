@@ -1,4 +1,5 @@
 /** Columns of the plans table; sorting happens on the server, so each sortable column only reports its order. */
+import { momentText } from '@/formats/dates';
 import { h } from 'vue';
 import { RouterLink } from 'vue-router';
 import { NButton, NDropdown, NIcon, NTag, type DataTableColumns, type DropdownOption } from 'naive-ui';
@@ -77,7 +78,7 @@ export function planColumns(
       width: 160,
       render: (plan) => {
         const at = deleted && plan.deletedAt ? plan.deletedAt : plan.updatedAt;
-        return h('span', { title: new Date(at).toLocaleString() }, relativeTime(at));
+        return h('span', { title: momentText(at) }, relativeTime(at));
       },
     },
     scope === 'shared'
