@@ -259,4 +259,16 @@ describe.skipIf(!chromiumPath)('training: classes, a fault hunt, the gradebook a
     await page.getByTestId('projector-step').waitFor();
     expect(await page.getByTestId('projector-step').innerText()).toBe('Step 1 of 1');
   });
+
+  it('warns, as soon as a plan is chosen in the puzzle maker, that a plan which already has faults is not healthy', async () => {
+    const { page } = instructor;
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await page.goto(`${baseUrl}/drills/puzzles/new`);
+    // The demo plan is faulty on purpose (its sweep finds faults: tests/engine/golden), so it cannot be a puzzle's base.
+    await choose(page, page.locator('.n-base-selection').first(), 'Harbour Street Bindery');
+    const warning = page.getByTestId('maker-plan-faulty');
+    await warning.waitFor({ timeout: 30_000 });
+    expect(await warning.innerText()).toMatch(/A sweep finds \d+ faults? in it already/);
+    expect(await warning.getByRole('link', { name: 'open it on the Bench' }).getAttribute('href')).toMatch(/^\/plans\//);
+  });
 });
