@@ -52,15 +52,34 @@ function asFoundSection(
   );
   for (const part of parts) {
     doc.moveDown(0.4).font('Helvetica-Bold').text(`${part.name} (${part.templateTitle})`).font('Helvetica');
-    for (const l of part.leads) {
-      const leads = [l.tip && `${l.tip} tip pin ${l.pins.tip}`, l.ring && `${l.ring} ring pin ${l.pins.ring}`]
-        .filter(Boolean)
-        .join(', ');
-      doc.text(`Pair ${l.pair} ${l.colour}: ${leads}${l.purpose ? ` (${l.purpose})` : ''}`, { indent: 14 });
-    }
+    doc.moveDown(0.2);
+    leadTable(doc, part);
     const note = notes.get(`part:${part.partId}`)?.note;
-    if (note) doc.font('Helvetica-Oblique').text(`Found: ${note}`, { indent: 14 }).font('Helvetica');
+    if (note) doc.font('Helvetica-Oblique').text(`Found: ${note}`).font('Helvetica');
   }
+}
+
+const HEAD = { type: 'TH' as const, backgroundColor: '#eef1f4', font: { src: 'Helvetica-Bold' } };
+
+/** One part's leads as a table, as the page draws them: pair and colour, tip, ring, pins, what they carry. */
+function leadTable(doc: Doc, part: AsFoundPart) {
+  doc.fontSize(9);
+  const table = doc.table({
+    columnStyles: [88, 44, 44, 52, '*'],
+    defaultStyle: { border: 0.5, borderColor: '#b8c2cc', padding: [2, 4] },
+  });
+  table.row(['Pair', 'Tip', 'Ring', 'Pins (T, R)', 'Carries'].map((text) => ({ text, ...HEAD })));
+  for (const l of part.leads)
+    table.row([
+      { text: `${l.pair} ${l.colour}`, font: { src: 'Helvetica-Bold' } },
+      l.tip ?? '—',
+      l.ring ?? '—',
+      `${l.pins.tip}, ${l.pins.ring}`,
+      l.purpose ?? '',
+    ]);
+  table.end();
+  doc.x = MARGIN;
+  doc.fontSize(10);
 }
 
 function stepsSection(doc: Doc, sheet: WorkSheet, entries: Map<string, WorkEntry>) {

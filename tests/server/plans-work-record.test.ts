@@ -141,7 +141,8 @@ describe('PDF work sheet', () => {
     const all = pages.join('\n');
     expect(all).toContain(SAFETY_TITLE);
     expect(all.replace(/\s+/g, ' ')).toContain(SAFETY_COMPACT.slice(0, 60));
-    expect(all).toContain('Pair 18 yellow-green'); // pair 18 is yellow-green (ICEA S-80-576)
+    expect(all).toContain('18 yellow-green'); // pair 18 is yellow-green (ICEA S-80-576)
+    expect(all).toContain('Pins (T, R)'); // the as-found leads are a table with its header row
     expect(all).toContain('[x] done 2026-03-14 by AB');
     expect(all).toContain('Found: Buzzer lead green, not yellow');
     // Sections flow on: the steps heading is not alone at the top of a fresh page after the as-found list.
