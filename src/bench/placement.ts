@@ -18,15 +18,23 @@ export const DEFAULT_PART_SIZE: Size = { width: 240, height: 180 };
 export interface PlacementOptions {
   /** Positions snap to this grid (the canvas's snap grid). */
   grid?: number;
-  /** Clear space kept between parts, so ports and their labels stay readable. */
+  /** Clear space kept between parts, above and below. */
   gap?: number;
+  /**
+   * Clear space kept between parts side by side (default `gap`): ports sit on a part's left and right edges with
+   * their labels outside it, so beside a part the gap must hold a label.
+   */
+  gapX?: number;
 }
 
-/** True when `a` and `b` come closer than `gap` (touching at exactly `gap` is allowed). */
-export function overlaps(a: Rect, b: Rect, gap = 0): boolean {
+/**
+ * True when `a` and `b` come closer than `gapX` side by side or `gap` above and below (exactly that far apart is
+ * allowed).
+ */
+export function overlaps(a: Rect, b: Rect, gap = 0, gapX = gap): boolean {
   return !(
-    a.x + a.width + gap <= b.x ||
-    b.x + b.width + gap <= a.x ||
+    a.x + a.width + gapX <= b.x ||
+    b.x + b.width + gapX <= a.x ||
     a.y + a.height + gap <= b.y ||
     b.y + b.height + gap <= a.y
   );
@@ -49,7 +57,7 @@ export function placePart(
   size: Size,
   taken: Rect[],
   bounds: Rect,
-  { grid = 20, gap = 20 }: PlacementOptions = {},
+  { grid = 20, gap = 20, gapX = gap }: PlacementOptions = {},
 ): Point {
   // `+ 0` turns a negative zero into zero.
   const down = (v: number) => Math.floor(v / grid) * grid + 0;
@@ -61,7 +69,7 @@ export function placePart(
     origin.x,
     up(bounds.x),
     down(bounds.x + bounds.width - size.width),
-    ...taken.flatMap((t) => [up(t.x + t.width + gap), down(t.x - gap - size.width)]),
+    ...taken.flatMap((t) => [up(t.x + t.width + gapX), down(t.x - gapX - size.width)]),
   ]);
   const ys = new Set([
     origin.y,
@@ -69,7 +77,7 @@ export function placePart(
     down(bounds.y + bounds.height - size.height),
     ...taken.flatMap((t) => [up(t.y + t.height + gap), down(t.y - gap - size.height)]),
   ]);
-  const free = (r: Rect) => taken.every((t) => !overlaps(r, t, gap));
+  const free = (r: Rect) => taken.every((t) => !overlaps(r, t, gap, gapX));
 
   const nearest = (within: Rect | null): Point | null => {
     let best: Point | null = null;

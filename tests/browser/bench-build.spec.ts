@@ -31,14 +31,14 @@ function positions(page: Page): Promise<Record<string, string>> {
   );
 }
 
+/** Every node's box, read in one go (the view may be panning to a part just placed). */
 async function nodeBoxes(page: Page): Promise<Box[]> {
-  const nodes = page.locator('.vue-flow__node');
-  const boxes: Box[] = [];
-  for (let i = 0; i < (await nodes.count()); i += 1) {
-    const box = await nodes.nth(i).boundingBox();
-    if (box) boxes.push(box);
-  }
-  return boxes;
+  return page.evaluate(() =>
+    [...document.querySelectorAll('.vue-flow__node')].map((n) => {
+      const r = n.getBoundingClientRect();
+      return { x: r.x, y: r.y, width: r.width, height: r.height };
+    }),
+  );
 }
 
 const apart = (a: Box, b: Box) =>
@@ -97,6 +97,14 @@ describe.skipIf(!chromiumPath)('building on the Bench', () => {
     expect(boxes).toHaveLength(3);
     for (let i = 0; i < boxes.length; i += 1)
       for (let j = i + 1; j < boxes.length; j += 1) expect(apart(boxes[i], boxes[j])).toBe(true);
+    // Each part placed is shown: the view pans to one whose free spot lay beyond it.
+    const inView = () =>
+      page.evaluate(() => {
+        const view = document.querySelector('.vue-flow')!.getBoundingClientRect();
+        const r = document.querySelector('[data-testid="node-set-2"]')!.getBoundingClientRect();
+        return r.left >= view.left && r.right <= view.right && r.top >= view.top && r.bottom <= view.bottom;
+      });
+    await expect.poll(inView).toBe(true);
 
     await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 15_000 }).toMatch(/Saved/);
     expect(await page.getByTestId('plan-issues').count()).toBe(0);

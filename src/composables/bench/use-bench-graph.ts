@@ -18,6 +18,12 @@ export { FLOW_ID };
 export const GRID = 20;
 
 /** Drawn sizes of parts not yet on the canvas, about what their nodes measure (an add-on is smaller). */
+/**
+ * Clear space beside a part: port labels stand outside a part's left and right edges ("Mounting cord ▸" is about
+ * 100 px at the drawing's 12 px text), so two parts side by side keep room for one label of each.
+ */
+const SIDE_GAP = 6 * GRID;
+
 const NEW_PART_SIZE: Record<PartRequest['kind'], Size> = {
   set: { width: 300, height: 240 },
   adapter: { width: 220, height: 120 },
@@ -171,7 +177,7 @@ export function useBenchGraph() {
 
   /** Where a part of `kind` wanted at `point` (drawing coordinates) lands: the nearest free spot in view. */
   function freeSpot(kind: PartRequest['kind'], point: Point): Point {
-    return placePart(point, newPartSize(kind), taken(), visibleBounds(), { grid: GRID, gap: GRID });
+    return placePart(point, newPartSize(kind), taken(), visibleBounds(), { grid: GRID, gap: GRID, gapX: SIDE_GAP });
   }
 
   /** Where a part added from the tray by a click lands: the free spot nearest the middle of the view. */

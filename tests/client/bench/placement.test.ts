@@ -60,6 +60,27 @@ describe('placePart', () => {
     );
   });
 
+  it('keeps the wider side gap beside parts and the plain gap above and below', () => {
+    fc.assert(
+      fc.property(
+        fc.array(rect, { maxLength: 25 }),
+        fc.record({ x: fc.integer({ min: -500, max: 1700 }), y: fc.integer({ min: -500, max: 1300 }) }),
+        rect,
+        (taken, want, size) => {
+          const at = placePart(want, size, taken, VIEW, { gap: GAP, gapX: 120 });
+          const placed = { ...at, width: size.width, height: size.height };
+          for (const t of taken) expect(overlaps(placed, t, GAP, 120)).toBe(false);
+        },
+      ),
+      { numRuns: 300 },
+    );
+    // Beside a part the side gap counts: 120 away side by side is free, 100 away is not.
+    const part: Rect = { x: 0, y: 0, width: 200, height: 120 };
+    expect(overlaps(part, { ...part, x: 320 }, GAP, 120)).toBe(false);
+    expect(overlaps(part, { ...part, x: 300 }, GAP, 120)).toBe(true);
+    expect(overlaps(part, { ...part, y: 140 }, GAP, 120)).toBe(false);
+  });
+
   it('stays inside the view whenever a free column is left at its left edge', () => {
     fc.assert(
       fc.property(
