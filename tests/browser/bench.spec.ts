@@ -202,9 +202,9 @@ describe.skipIf(!chromiumPath)('the Bench, from an empty plan to a cure', () => 
     // "N states visited: M findings, F faults and W warnings." with the same M as rows in the table; the demo-sized
     // drawing is far under the sound sweep's limit (shared/engine/search/README.md), so the sweep says complete.
     expect(await page.getByTestId('sweep-complete').innerText()).toMatch(/^Complete:/);
-    const match = /(\d+) states visited: (\d+) findings?,/.exec(await summary.innerText());
+    const match = /([\d,]+) states visited: (\d+) findings?,/.exec(await summary.innerText());
     expect(match).not.toBeNull();
-    expect(Number(match![1])).toBeGreaterThan(1);
+    expect(Number(match![1].replace(/,/g, ''))).toBeGreaterThan(1);
     const rows = page.getByTestId('sweep-results').locator('tbody tr');
     expect(await rows.count()).toBe(Number(match![2]));
     const joined = page.getByTestId('sweep-row-LINES_JOINED').first();

@@ -7,6 +7,7 @@
 import {
   applyActions,
   buildCoarseNets,
+  countWords,
   evaluate,
   FINDING_TITLES,
   getNetlist,
@@ -54,15 +55,9 @@ export function proveClean(plan: Plan, opts: Pick<SweepOptions, 'events'> = {}):
   return {
     proven: true,
     words:
-      `Complete by proof, without visiting each state: in none of the ${formatCount(combinations)} combinations ` +
+      `Complete by proof, without visiting each state: in none of the ${countWords(combinations)} combinations ` +
       `of the ${plan.sets.length} sets' positions, with any of the ${events.length} KSU events, can the wiring ` +
       'join two lines, put a line on ground or on a control lead, let a set hear a line it has not selected, ' +
       'light a line nobody is on, or ring or buzz the wrong sets. Only wiring findings (wrong in every state) remain.',
   };
-}
-
-/** A count in words a reader can take in: exact up to a trillion, else as a power of ten. */
-function formatCount(n: number): string {
-  if (n < 1e12) return n.toLocaleString('en');
-  return `about 10^${Math.floor(Math.log10(n))}`;
 }

@@ -4,6 +4,7 @@
  */
 export { findAddOn, findLeadPart, findSet } from '../document/parts';
 export { stationCode } from '../document/ksu-leads';
+export { countWords } from '../document/words';
 export { getTemplate, TEMPLATES } from '../templates/part-templates';
 export { lineOfDesignation } from '../templates/designations';
 export { standardCrossConnect, effectiveCrossConnect } from '../model/cross-connect';

@@ -4,7 +4,7 @@
  * can trade places without changing anything the evaluation reads, so only one ordering of their positions is
  * visited and each finding stands for its images under those trades. Argument: ./README.md ("Sound sweep").
  */
-import { getNetlist, type Plan } from './engine-port';
+import { countWords, getNetlist, type Plan } from './engine-port';
 import { proveClean } from './clean-proof';
 import { planSweep, sweepEvents, type Planned, type SweepOptions } from './sweep';
 
@@ -153,8 +153,8 @@ export function planSoundSweep(plan: Plan, opts: Pick<SweepOptions, 'events'> = 
       ...reduced,
       reduction,
       incompleteReason:
-        `Too large for a complete sweep: ${combinations.toLocaleString('en')} combinations of set positions × ${events} ` +
-        `KSU events (after trading interchangeable sets) is more than ${SOUND_STATE_LIMIT.toLocaleString('en')} ` +
+        `Too large for a complete sweep: ${countWords(combinations)} combinations of set positions × ${events} ` +
+        `KSU events (after trading interchangeable sets) is more than ${countWords(SOUND_STATE_LIMIT)} ` +
         'states. Shown: each set alone in every position with every event, and every two sets on one station port ' +
         `together; faults needing other sets together may be missing. ${proof.reason}`,
     };
