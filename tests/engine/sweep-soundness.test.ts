@@ -77,6 +77,29 @@ describe('fixed cases', () => {
     expectSameAsExhaustive(plan);
   }, 60_000);
 
+  it('identical sets that reach the same nets by different routes keep their own wiring findings', () => {
+    // Two single-line sets with hands-free add-ons, one on port 1 of a nine-line KSU, the other on port 2's adapter
+    // beside a ten-key set: the standard cross-connect puts both on the same nets, so they are traded as one, but
+    // only the add-on on the shared adapter is paralleled pin for pin with the ten-key set's private leads.
+    const plan = buildPlan({
+      lines: 9,
+      sets: [
+        { template: 'single-line', addOn: true, where: 0, station: false, leadChanges: [] },
+        { template: 'ten-key', addOn: false, where: 0, station: false, leadChanges: [] },
+        { template: 'six-key', addOn: false, where: 0, station: false, leadChanges: [] },
+      ],
+      copies: [false, true, false],
+      customCrossConnect: null,
+    });
+    expect(interchangeableSets(plan)).toEqual([[0, 2]]);
+    const result = expectSameAsExhaustive(plan);
+    const shared = result.findings
+      .filter((f) => f.finding.code === 'PRIVATE_LEAD_SHARED')
+      .map((f) => [...f.finding.sets].sort().join(' + '));
+    expect(shared).toContain('set-2 + speaker-3');
+    expect(shared).not.toContain('set-2 + speaker-1');
+  }, 60_000);
+
   it('a plan too large for a complete sweep says so', () => {
     const b = planBuilder();
     const ksu = b.ksu({ lines: 9, stations: 2, ports: 6 });

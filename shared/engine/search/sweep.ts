@@ -14,12 +14,20 @@ import {
   eventMayAddFindings,
   getTemplate,
   initialState,
+  RULES,
   type Finding,
   type Plan,
   type SimAction,
   type SimState,
 } from './engine-port';
 import { planSoundSweep } from './sound-sweep';
+
+/** Codes of the wiring rules: findings wrong in every state, read off the netlist once. */
+const WIRING_CODES: ReadonlySet<string> = new Set(
+  Object.values(RULES)
+    .filter((r) => r.kind === 'wiring')
+    .map((r) => r.code),
+);
 
 export type SweepStrategy = 'exhaustive' | 'reduced';
 
@@ -478,12 +486,15 @@ export function runSweep(plan: Plan, opts: SweepOptions, planned: Planned): Swee
   opts.onProgress?.(visited, total);
 
   // Interchangeable sets: each finding of a visited combination stands for its images under the permutations of
-  // those sets, in the image combination and at the same size (README, "Sound sweep").
+  // those sets, in the image combination and at the same size (README, "Sound sweep"). A wiring finding has none:
+  // it is read off the whole netlist in the idle state, exactly, and names the parts its conductors run through,
+  // which two sets on the same nets by different routes (a port of their own, an adapter shared) do not share.
   if (planned.images) {
     const ids = plan.sets.map((s) => s.id);
     const addOnsOf = new Map<string, string[]>();
     for (const a of plan.addOns) addOnsOf.set(a.serves, [...(addOnsOf.get(a.serves) ?? []), a.id]);
     for (const [, entry] of [...best]) {
+      if (WIRING_CODES.has(entry.finding.code)) continue;
       for (const image of planned.images(entry.combo).slice(1)) {
         // Sets trade places together with the add-ons serving them (findings name add-ons too).
         const rename = new Map<string, string>();
