@@ -57,8 +57,11 @@ const CHANGE_WEIGHT = 1000;
 const EXACT: Parameters<LegacyHighs['solve']>[1] = { mip_rel_gap: 0 };
 
 type Constraint =
-  /** At least one of these. */
-  | { kind: 'cover'; ids: string[] }
+  /**
+   * At least one of these, or not every one of `unless`: a finding seen on a plan changed by buzzer moves may run
+   * over a connection a move made, so its cover binds only the cures that make all those moves again.
+   */
+  | { kind: 'cover'; ids: string[]; unless?: string[] }
   /** Not exactly this combination (a no-good cut): sum(in) - sum(out) <= |in| - 1. */
   | { kind: 'not-exactly'; ids: string[] }
   /** Total weight at most this. */
@@ -101,9 +104,11 @@ function lpText(
   const term = (ids: string[]) => ids.filter((id) => names.has(id)).map((id) => names.get(id)!);
   for (const con of ps.constraints) {
     if (con.kind === 'cover') {
+      // sum(cover) + sum(1 - move) >= 1, that is sum(cover) - sum(move) >= 1 - |moves|
       const t = term(con.ids);
-      if (t.length === 0) lines.push(` r${row++}: 0 x_empty >= 1`);
-      else lines.push(` r${row++}: ${t.join(' + ')} >= 1`);
+      const moves = term(con.unless ?? []);
+      const expr = [t.join(' + '), ...moves.map((m) => `- ${m}`)].filter(Boolean).join(' ');
+      lines.push(` r${row++}: ${expr || '0 x_empty'} >= ${1 - moves.length}`);
     } else if (con.kind === 'weight-at-most') {
       lines.push(` r${row++}: ${objective} <= ${con.max}`);
     } else {
@@ -140,22 +145,27 @@ function leadHopsOnly(problem: Problem): Problem {
     : { finding: { ...problem.finding, path } };
 }
 
-/** Adds the constraint "some candidate of this problem is chosen"; false when the problem has no candidate. */
-function addCover(ps: Problemset, plan: Plan, problem: Problem, ports: number[]): boolean {
-  return coverOf(ps, plan, problem, ports).length > 0;
+/**
+ * Adds the constraint "some candidate of this problem is chosen" (unless the cure leaves out one of the buzzer
+ * moves `unless`, made in the plan the problem was seen on); false when the problem has no candidate.
+ */
+function addCover(ps: Problemset, plan: Plan, problem: Problem, ports: number[], unless: string[] = []): boolean {
+  return coverOf(ps, plan, problem, ports, unless).length > 0;
 }
 
 /** addCover, returning the problem's candidates. */
-function coverOf(ps: Problemset, plan: Plan, problem: Problem, ports: number[]): Candidate[] {
+function coverOf(ps: Problemset, plan: Plan, problem: Problem, ports: number[], unless: string[] = []): Candidate[] {
   const cands = candidatesFor(plan, leadHopsOnly(problem), ports);
-  const key = cands
+  const key = `${cands
     .map((c) => c.id)
     .sort()
-    .join(' ');
+    .join(' ')}|${[...unless].sort().join(' ')}`;
   if (ps.seen.has(key)) return cands;
   ps.seen.add(key);
   for (const c of cands) if (!ps.candidates.has(c.id)) ps.candidates.set(c.id, c);
-  ps.constraints.push({ kind: 'cover', ids: cands.map((c) => c.id) });
+  ps.constraints.push(
+    unless.length ? { kind: 'cover', ids: cands.map((c) => c.id), unless } : { kind: 'cover', ids: cands.map((c) => c.id) },
+  );
   return cands;
 }
 
@@ -238,7 +248,9 @@ async function solveLoop(
     const solution = highs.solve(text, EXACT);
     if (solution.Status !== 'Optimal') {
       // Infeasible: some constraint has no allowed candidate, or the candidates exclude each other.
-      const empty = ps.constraints.findIndex((c) => c.kind === 'cover' && !c.ids.some((id) => names.has(id)));
+      const empty = ps.constraints.findIndex(
+        (c) => c.kind === 'cover' && !c.unless?.length && !c.ids.some((id) => names.has(id)),
+      );
       return {
         ok: false,
         chosen: [],
@@ -282,7 +294,10 @@ async function solveLoop(
         stopped: false,
       };
     }
-    for (const f of swept.findings) addCover(ps, cured, { finding: f.finding }, ports);
+    // A finding of the changed plan needs one of its covers only in cures that make the same buzzer moves: a move
+    // adds a connection, and the finding's path may run over it (lifts only take connections away).
+    const moves = chosen.filter((c) => c.kind === 'move').map((c) => c.id);
+    for (const f of swept.findings) addCover(ps, cured, { finding: f.finding }, ports, moves);
     // Lifting only takes connections away: a change set that takes away a required function, or whose remaining
     // findings no candidate touches, is ruled out exactly (not its supersets).
     ps.constraints.push({ kind: 'not-exactly', ids: chosen.map((c) => c.id) });

@@ -75,7 +75,7 @@ describe('SweepPanel', () => {
     const expected = t.worker.sweepResult.value!;
     expect(expected.findings.length).toBeGreaterThan(0);
     expect(t.wrapper.get('[data-testid="sweep-summary"]').text()).toContain(
-      `${expected.statesVisited} states visited`,
+      `${expected.statesVisited.toLocaleString('en')} states visited`,
     );
     const rows = t.wrapper.findAll('[data-testid^="sweep-row-"]');
     expect(rows).toHaveLength(expected.findings.length);
