@@ -224,9 +224,26 @@ export function candidatesFor(plan: Plan, problem: Problem, ports: number[]): Ca
   const everyLeadOf = (setIds: string[]) => out.push(...liftsOf(plan, setIds));
   if ('finding' in problem) {
     const { finding } = problem;
+    const movesOf = new Map<string, Candidate[]>();
+    const movesOfSet = (id: string) => {
+      if (!movesOf.has(id)) movesOf.set(id, moveCandidates(plan, id, ports));
+      return movesOf.get(id)!;
+    };
     for (const hop of finding.path) {
+      // At the KSU the path runs over a cross-connect entry: a buzzer move that takes the station's output off that
+      // pair (with the set it goes to) breaks it there.
+      if (hop.part === plan.ksu.id && hop.pair !== undefined && hop.port !== undefined) {
+        const port = Number(/(\d+)$/.exec(hop.port)?.[1] ?? -1);
+        plan.sets.forEach((set, i) => {
+          if (ports[i] !== port) return;
+          out.push(...movesOfSet(set.id).filter((c) => c.pair === hop.pair && c.replaces));
+        });
+        continue;
+      }
       if (hop.pair === undefined || !isPart(hop.part)) continue;
       out.push(...liftCandidates(plan, hop.part, hop.pair));
+      // Moving a set's buzzer lead off the pair breaks the path there as a lift does, and keeps the buzzer.
+      if (findSet(plan, hop.part)) out.push(...movesOfSet(hop.part).filter((c) => c.pair === hop.pair));
     }
     // No conductor path to follow (e.g. a line held aside): any lead of the sets involved, or of every set.
     if (finding.path.length === 0)

@@ -137,9 +137,10 @@ function lpText(
  * by a lead remain, since only changing such a lead can break the path (a pin passed through an add-on's bridge
  * stays connected whatever that add-on's own leads do).
  */
-function leadHopsOnly(problem: Problem): Problem {
+function leadHopsOnly(problem: Problem, ksuId: string): Problem {
   if (!('finding' in problem)) return problem;
-  const path = problem.finding.path.filter((h) => h.pin === undefined);
+  // The KSU's own pins stay: there the path runs over a cross-connect entry, which a buzzer move can take away.
+  const path = problem.finding.path.filter((h) => h.pin === undefined || h.part === ksuId);
   return path.length === problem.finding.path.length || path.length === 0
     ? problem
     : { finding: { ...problem.finding, path } };
@@ -149,13 +150,34 @@ function leadHopsOnly(problem: Problem): Problem {
  * Adds the constraint "some candidate of this problem is chosen" (unless the cure leaves out one of the buzzer
  * moves `unless`, made in the plan the problem was seen on); false when the problem has no candidate.
  */
-function addCover(ps: Problemset, plan: Plan, problem: Problem, ports: number[], unless: string[] = []): boolean {
-  return coverOf(ps, plan, problem, ports, unless).length > 0;
+function addCover(
+  ps: Problemset,
+  plan: Plan,
+  problem: Problem,
+  ports: number[],
+  unless: string[] = [],
+  base?: Plan,
+): boolean {
+  return coverOf(ps, plan, problem, ports, unless, base).length > 0;
 }
 
-/** addCover, returning the problem's candidates. */
-function coverOf(ps: Problemset, plan: Plan, problem: Problem, ports: number[], unless: string[] = []): Candidate[] {
-  const cands = candidatesFor(plan, leadHopsOnly(problem), ports);
+/**
+ * addCover, returning the problem's candidates. For a problem seen on a changed plan, `base` is the plan before the
+ * round's changes: its candidates for the same problem join the changed plan's, since a cure without the round's
+ * moves has spare pairs that those moves took (a buzzer move to such a pair is a way out too).
+ */
+function coverOf(
+  ps: Problemset,
+  plan: Plan,
+  problem: Problem,
+  ports: number[],
+  unless: string[] = [],
+  base?: Plan,
+): Candidate[] {
+  const own = candidatesFor(plan, leadHopsOnly(problem, plan.ksu.id), ports);
+  const extra = base ? candidatesFor(base, leadHopsOnly(problem, plan.ksu.id), ports) : [];
+  const ids = new Set(own.map((c) => c.id));
+  const cands = [...own, ...extra.filter((c) => !ids.has(c.id) && ids.add(c.id))];
   const key = `${cands
     .map((c) => c.id)
     .sort()
@@ -294,10 +316,46 @@ async function solveLoop(
         stopped: false,
       };
     }
-    // A finding of the changed plan needs one of its covers only in cures that make the same buzzer moves: a move
-    // adds a connection, and the finding's path may run over it (lifts only take connections away).
-    const moves = chosen.filter((c) => c.kind === 'move').map((c) => c.id);
-    for (const f of swept.findings) addCover(ps, cured, { finding: f.finding }, ports, moves);
+    // A finding of the changed plan needs one of its covers only in cures that make the buzzer moves it may rest
+    // on: a move adds a connection (the lead on its spare pair, the cross-connect entry that follows it), and every
+    // hop over that connection names the spare pair. Lifts only take connections away. An intercom call sounding
+    // several buzzers also rests on the other buzzers it sounds, which a move feeding that station may have added.
+    // A finding with no path traced counts every move.
+    const moves = chosen.filter((c) => c.kind === 'move');
+    for (const f of swept.findings) {
+      const { path, code, stations } = f.finding;
+      const over = moves.filter(
+        (m) =>
+          !path.length ||
+          path.some((h) => h.pair === movedTo(m)) ||
+          (code === 'INTERCOM_SOUNDS_SEVERAL' &&
+            m.crossConnect?.lead.kind === 'buzzer' &&
+            stations.includes(m.crossConnect.lead.station)),
+      );
+      addCover(
+        ps,
+        cured,
+        { finding: f.finding },
+        ports,
+        over.map((m) => m.id),
+        plan,
+      );
+    }
+    // A station's call that misses a set assigned to it after these changes misses it after any further lifts and
+    // moves of other sets too (none adds a connection to that set's buzzer pair): every cure that makes all of
+    // this round's changes also moves that set's buzzer.
+    if (after.length === 0)
+      for (const failure of failuresOf())
+        if (failure.function === 'intercomPerStation' && failure.kind === 'missing')
+          for (const set of failure.sets)
+            addCover(
+              ps,
+              cured,
+              { failure: { ...failure, sets: [set] } },
+              ports,
+              chosen.map((c) => c.id),
+              plan,
+            );
     // Lifting only takes connections away: a change set that takes away a required function, or whose remaining
     // findings no candidate touches, is ruled out exactly (not its supersets).
     ps.constraints.push({ kind: 'not-exactly', ids: chosen.map((c) => c.id) });
@@ -312,6 +370,11 @@ async function solveLoop(
     verifiedBy: 'none',
     stopped: true,
   };
+}
+
+/** The spare pair a buzzer move puts its lead on. */
+function movedTo(c: Candidate): number | undefined {
+  return c.change.kind === 'move' ? c.change.toPair : undefined;
 }
 
 function partsOf(plan: Plan, setIds: readonly string[]): Set<string> {
@@ -413,6 +476,21 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions, sweepOf: SweepOf)
         first.complete,
       );
     }
+  }
+  // A station's call that does not reach a set assigned to it needs a new connection to that set's buzzer, and the
+  // only change that adds one is a move of that set's buzzer lead with the station's cross-connect entry: one of
+  // those moves is in every cure. (Other failures have no such bound: a lift elsewhere may restore them.)
+  for (const failure of plan.required.intercomPerStation ? baseFailures() : []) {
+    if (failure.function !== 'intercomPerStation' || failure.kind !== 'missing') continue;
+    // one cover per set the call misses: each needs a move of its own buzzer
+    for (const set of failure.sets)
+      if (!addCover(ps, plan, { failure: { ...failure, sets: [set] } }, ports))
+        return noCure(
+          before,
+          baseFailures(),
+          { failure, reason: 'no spare pair on its station port can take its buzzer lead' },
+          first.complete,
+        );
   }
   const forbidden = partsOf(plan, untouched);
   const allowedWith = (blocked: Set<string>) => (c: Candidate) => !blocked.has(c.part);
