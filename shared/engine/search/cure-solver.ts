@@ -148,23 +148,10 @@ function leadHopsOnly(problem: Problem, ksuId: string): Problem {
 
 /**
  * Adds the constraint "some candidate of this problem is chosen" (unless the cure leaves out one of the buzzer
- * moves `unless`, made in the plan the problem was seen on); false when the problem has no candidate.
- */
-function addCover(
-  ps: Problemset,
-  plan: Plan,
-  problem: Problem,
-  ports: number[],
-  unless: string[] = [],
-  base?: Plan,
-): boolean {
-  return coverOf(ps, plan, problem, ports, unless, base).length > 0;
-}
-
-/**
- * addCover, returning the problem's candidates. For a problem seen on a changed plan, `base` is the plan before the
- * round's changes: its candidates for the same problem join the changed plan's, since a cure without the round's
- * moves has spare pairs that those moves took (a buzzer move to such a pair is a way out too).
+ * moves `unless`, made in the plan the problem was seen on) and returns the candidates; none when the problem has
+ * none. For a problem seen on a changed plan, `base` is the plan before the round's changes: its candidates for the
+ * same problem join the changed plan's, since a cure without the round's moves has spare pairs that those moves took
+ * (a buzzer move to such a pair is a way out too).
  */
 function coverOf(
   ps: Problemset,
@@ -332,7 +319,7 @@ async function solveLoop(
             m.crossConnect?.lead.kind === 'buzzer' &&
             stations.includes(m.crossConnect.lead.station)),
       );
-      addCover(
+      coverOf(
         ps,
         cured,
         { finding: f.finding },
@@ -348,7 +335,7 @@ async function solveLoop(
       for (const failure of failuresOf())
         if (failure.function === 'intercomPerStation' && failure.kind === 'missing')
           for (const set of failure.sets)
-            addCover(
+            coverOf(
               ps,
               cured,
               { failure: { ...failure, sets: [set] } },
@@ -468,7 +455,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions, sweepOf: SweepOf)
   }
   // Round zero: one constraint per finding of the plan, and per required function that already fails.
   for (const f of first.findings) {
-    if (!addCover(ps, plan, { finding: f.finding }, ports)) {
+    if (!coverOf(ps, plan, { finding: f.finding }, ports).length) {
       return noCure(
         before,
         baseFailures(),
@@ -484,7 +471,7 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions, sweepOf: SweepOf)
     if (failure.function !== 'intercomPerStation' || failure.kind !== 'missing') continue;
     // one cover per set the call misses: each needs a move of its own buzzer
     for (const set of failure.sets)
-      if (!addCover(ps, plan, { failure: { ...failure, sets: [set] } }, ports))
+      if (!coverOf(ps, plan, { failure: { ...failure, sets: [set] } }, ports).length)
         return noCure(
           before,
           baseFailures(),
