@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { byDueDate, dueText, minutesText, statusText } from '../../src/components/training/training-format';
+import { byDueDate, dueCell, dueText, minutesText, statusText } from '../../src/components/training/training-format';
 
 describe('training wording', () => {
   const due = '2026-03-10T17:00:00.000Z';
@@ -19,6 +19,13 @@ describe('training wording', () => {
     expect(dueText(due, 'passed', after)).toMatch(/^Due /);
     expect(dueText(due, 'failed', after)).toMatch(/^Due /);
     expect(dueText(due, undefined, after)).toMatch(/^Due /);
+  });
+
+  it('writes a due date in a "Due" column without repeating the heading, marked while owed past it', () => {
+    expect(dueCell(null)).toBe('—');
+    expect(dueCell(due, 'not-started', before)).not.toMatch(/Due|overdue/);
+    expect(dueCell(due, 'working', after)).toMatch(/ \(overdue\)$/);
+    expect(dueCell(due, 'passed', after)).not.toMatch(/overdue/);
   });
 
   it('names every status in words and rounds time up to whole minutes', () => {

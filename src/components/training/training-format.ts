@@ -17,6 +17,13 @@ export function dueText(dueAt: string | null, status?: AssignmentStatus, now = D
   return status && OWED.has(status) && due.getTime() < now ? `Overdue: was due ${when}` : `Due ${when}`;
 }
 
+/** The due date in a column headed "Due": the day and time, marked while the work is owed past it. */
+export function dueCell(dueAt: string | null, status?: AssignmentStatus, now = Date.now()): string {
+  if (!dueAt) return '—';
+  const due = new Date(dueAt);
+  return status && OWED.has(status) && due.getTime() < now ? `${momentText(due)} (overdue)` : momentText(due);
+}
+
 /** Assignments soonest due first, those without a due date last; equal dates keep the order they were set in. */
 export function byDueDate<T extends { dueAt: string | null }>(items: readonly T[]): T[] {
   const at = (x: T) => (x.dueAt ? Date.parse(x.dueAt) : Number.POSITIVE_INFINITY);
