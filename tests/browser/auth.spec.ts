@@ -179,6 +179,8 @@ describe.skipIf(!chromiumPath)('accounts and roles in the browser', () => {
     await page.getByText('Enter a valid e-mail address').waitFor();
     expect(await page.getByLabel('E-mail').getAttribute('aria-invalid')).toBe('true');
     expect(requests).toEqual([]);
+    // Our message only: the browser's own validation bubble would say the same thing a second time.
+    expect(await page.getByLabel('E-mail').evaluate((el) => (el as HTMLInputElement).form?.noValidate)).toBe(true);
   });
 
   it('sends a visitor from a member page to sign in and back there afterwards', async () => {
