@@ -521,7 +521,9 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions, sweepOf: SweepOf)
     choices,
     message:
       `${n} lead change${n === 1 ? '' : 's'} clear every finding and keep the required functions; ` +
-      'no cure with fewer changes exists among the lifts and buzzer moves considered.' +
+      (first.complete
+        ? 'no cure with fewer changes exists among the lifts and buzzer moves considered.'
+        : 'none with fewer changes clears the findings the partial sweep of the plan reached.') +
       (loop.verifiedBy === 'partial-sweep' ? ' The changed plan was checked by a partial sweep only.' : ''),
   };
 }
