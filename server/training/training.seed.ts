@@ -1,10 +1,13 @@
 /**
  * Demo training data: the demo instructor's class with the demo trainee in it, four library puzzles in the
- * instructor's collection (three assigned, with due dates) and a demonstration of the demo installation.
+ * instructor's collection (three assigned, with due dates), a demonstration of the demo installation, and a
+ * healthy copy of that installation (its cure made) in the instructor's plans for the puzzle maker.
  */
 import type { Knex } from 'knex';
 import {
   applyAction,
+  applyCure,
+  cure,
   evaluate,
   initialState,
   type Plan,
@@ -13,6 +16,7 @@ import {
 import type { DemonstrationStep } from '../../shared/training/demonstration.schema';
 import { SHIPPED_PUZZLES } from '../../shared/training/index';
 import { loadDemoPlan } from '../plans/demo-plan';
+import { plansRepo } from '../plans/plans.repo';
 import { classesRepo } from './classes.repo';
 import { puzzlesRepo } from './puzzles.repo';
 import { usersRepo } from '../users/users.repo';
@@ -20,6 +24,19 @@ import { usersRepo } from '../users/users.repo';
 export const DEMO_CLASS_NAME = 'Evening restoration course';
 export const DEMO_PUZZLE_SLUGS = ['dark-lamp-front-desk', 'two-dial-tones', 'bakehouse-buzzer', 'back-office-two-faults'];
 export const DEMO_DEMONSTRATION_TITLE = 'Why the bindery hears two dial tones';
+/** The instructor's healthy plan: the demo installation with its cure applied, to plant puzzle faults in. */
+export const DEMO_HEALTHY_PLAN_NAME = 'Bindery after the cure';
+
+/** The demo installation with the cure's lead changes made, or null when the cure finds none to make. */
+export function healthyDemoPlan(plan: Plan): Plan | null {
+  const result = cure(plan);
+  if (!result.ok || !result.changes.length) return null;
+  return {
+    ...applyCure(plan, result),
+    name: DEMO_HEALTHY_PLAN_NAME,
+    description: 'The demo installation with its cure made: no fault in any state, a base for fault puzzles.',
+  };
+}
 
 const DAY = 24 * 3600_000;
 
@@ -94,4 +111,6 @@ export async function seedTraining(knex: Knex): Promise<void> {
   }
   const demonstrationId = await puzzles.saveDemonstration(instructor.id, demoDemonstration(plan));
   await classes.createAssignment({ classId, kind: 'demonstration', itemId: demonstrationId, dueAt: null });
+  const healthy = healthyDemoPlan(plan);
+  if (healthy) await plansRepo(knex).create(instructor.id, healthy);
 }

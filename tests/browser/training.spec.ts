@@ -270,5 +270,10 @@ describe.skipIf(!chromiumPath)('training: classes, a fault hunt, the gradebook a
     await warning.waitFor({ timeout: 30_000 });
     expect(await warning.innerText()).toMatch(/A sweep finds \d+ faults? in it already/);
     expect(await warning.getByRole('link', { name: 'open it on the Bench' }).getAttribute('href')).toMatch(/^\/plans\//);
+
+    // The seeded healthy copy (the demo plan with its cure made) sweeps clean: no warning once the sweep is done.
+    await choose(page, page.locator('.n-base-selection').first(), 'Bindery after the cure');
+    await page.getByTestId('maker-plan-healthy').waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId('maker-plan-faulty').count()).toBe(0);
   });
 });

@@ -6,6 +6,9 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seeds/demo-accounts.seed'
 import { seedDemo } from '../../server/seed-demo';
 import { isDatabaseEmpty } from '../../server/db/database';
 import { startTestServer, type TestServer } from './server.harness';
+import { sweep } from '../../shared/engine/index';
+import { loadDemoPlan } from '../../server/plans/demo-plan';
+import { DEMO_HEALTHY_PLAN_NAME, healthyDemoPlan } from '../../server/training/training.seed';
 
 let server: TestServer;
 beforeAll(async () => {
@@ -40,10 +43,24 @@ it('does not duplicate accounts when run again', async () => {
   expect(await server.db('users').count({ n: '*' }).first()).toEqual({ n: 4 });
 });
 
-it('gives every demo account the demo plan', async () => {
+it('gives every demo account the demo plan, and the instructor a healthy copy for puzzles', async () => {
   for (const account of DEMO_ACCOUNTS) {
     const agent = request.agent(server.app);
     await agent.post('/api/auth/sign-in').send({ email: account.email, password: DEMO_PASSWORD });
-    expect(PlanListSchema.parse((await agent.get('/api/plans')).body).items).toHaveLength(1);
+    const names = PlanListSchema.parse((await agent.get('/api/plans')).body)
+      .items.map((p) => p.name)
+      .sort();
+    const demo = loadDemoPlan().name;
+    expect(names).toEqual(account.role === 'instructor' ? [DEMO_HEALTHY_PLAN_NAME, demo].sort() : [demo]);
   }
+});
+
+it("makes the instructor's healthy copy the demo plan with its cure, which no state shows a finding in", () => {
+  const demo = loadDemoPlan();
+  const healthy = healthyDemoPlan(demo)!;
+  expect(healthy.sets.map((s) => s.id)).toEqual(demo.sets.map((s) => s.id));
+  expect(healthy.sets.some((s) => s.leadChanges.length > 0)).toBe(true);
+  const swept = sweep(healthy);
+  expect(swept.complete).toBe(true);
+  expect(swept.findings.map((f) => f.finding.message)).toEqual([]);
 });
