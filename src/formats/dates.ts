@@ -1,6 +1,6 @@
 /**
- * Dates as every page writes them: one style across the product ("Dec 4, 2026", "Dec 4, 2026, 5:00 PM" in an
- * English locale), in the reader's own locale and time zone.
+ * Dates as the screens write them: one style ("Dec 4, 2026", "Dec 4, 2026, 5:00 PM" in an English locale), in the
+ * reader's own locale and time zone. The printed work sheet spells the month out, as a signed record does.
  */
 const DAY: Intl.DateTimeFormatOptions = { dateStyle: 'medium' };
 const MOMENT: Intl.DateTimeFormatOptions = { dateStyle: 'medium', timeStyle: 'short' };

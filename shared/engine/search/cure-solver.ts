@@ -58,10 +58,10 @@ const EXACT: Parameters<LegacyHighs['solve']>[1] = { mip_rel_gap: 0 };
 
 type Constraint =
   /**
-   * At least one of these, or not every one of `unless`: a finding seen on a plan changed by buzzer moves may run
-   * over a connection a move made, so its cover binds only the cures that make all those moves again.
+   * At least one of these, or not every one of `unless`: a problem seen on a changed plan may rest on changes of
+   * that round (a connection a buzzer move made), so its cover binds only the cures that make those changes again.
    */
-  | { kind: 'cover'; ids: string[]; unless?: string[] }
+  | { kind: 'cover'; ids: string[]; unless: string[] }
   /** Not exactly this combination (a no-good cut): sum(in) - sum(out) <= |in| - 1. */
   | { kind: 'not-exactly'; ids: string[] }
   /** Total weight at most this. */
@@ -106,7 +106,7 @@ function lpText(
     if (con.kind === 'cover') {
       // sum(cover) + sum(1 - move) >= 1, that is sum(cover) - sum(move) >= 1 - |moves|
       const t = term(con.ids);
-      const moves = term(con.unless ?? []);
+      const moves = term(con.unless);
       const expr = [t.join(' + '), ...moves.map((m) => `- ${m}`)].filter(Boolean).join(' ');
       lines.push(` r${row++}: ${expr || '0 x_empty'} >= ${1 - moves.length}`);
     } else if (con.kind === 'weight-at-most') {
@@ -172,9 +172,7 @@ function coverOf(
   if (ps.seen.has(key)) return cands;
   ps.seen.add(key);
   for (const c of cands) if (!ps.candidates.has(c.id)) ps.candidates.set(c.id, c);
-  ps.constraints.push(
-    unless.length ? { kind: 'cover', ids: cands.map((c) => c.id), unless } : { kind: 'cover', ids: cands.map((c) => c.id) },
-  );
+  ps.constraints.push({ kind: 'cover', ids: cands.map((c) => c.id), unless });
   return cands;
 }
 
@@ -258,7 +256,7 @@ async function solveLoop(
     if (solution.Status !== 'Optimal') {
       // Infeasible: some constraint has no allowed candidate, or the candidates exclude each other.
       const empty = ps.constraints.findIndex(
-        (c) => c.kind === 'cover' && !c.unless?.length && !c.ids.some((id) => names.has(id)),
+        (c) => c.kind === 'cover' && !c.unless.length && !c.ids.some((id) => names.has(id)),
       );
       return {
         ok: false,
@@ -332,17 +330,15 @@ async function solveLoop(
     // moves of other sets too (none adds a connection to that set's buzzer pair): every cure that makes all of
     // this round's changes also moves that set's buzzer.
     if (after.length === 0)
-      for (const failure of failuresOf())
-        if (failure.function === 'intercomPerStation' && failure.kind === 'missing')
-          for (const set of failure.sets)
-            coverOf(
-              ps,
-              cured,
-              { failure: { ...failure, sets: [set] } },
-              ports,
-              chosen.map((c) => c.id),
-              plan,
-            );
+      for (const failure of missedBuzzers(failuresOf()))
+        coverOf(
+          ps,
+          cured,
+          { failure },
+          ports,
+          chosen.map((c) => c.id),
+          plan,
+        );
     // Lifting only takes connections away: a change set that takes away a required function, or whose remaining
     // findings no candidate touches, is ruled out exactly (not its supersets).
     ps.constraints.push({ kind: 'not-exactly', ids: chosen.map((c) => c.id) });
@@ -357,6 +353,16 @@ async function solveLoop(
     verifiedBy: 'none',
     stopped: true,
   };
+}
+
+/**
+ * One failure per set a station's call misses though the set is assigned to it: each needs a move of its own buzzer
+ * lead, the only change that adds a connection to it.
+ */
+function missedBuzzers(failures: readonly RequiredFailure[]): RequiredFailure[] {
+  return failures
+    .filter((f) => f.function === 'intercomPerStation' && f.kind === 'missing')
+    .flatMap((f) => f.sets.map((set) => ({ ...f, sets: [set] })));
 }
 
 /** The spare pair a buzzer move puts its lead on. */
@@ -467,18 +473,14 @@ async function cureOnce(input: Plan, opts: OptimalCureOptions, sweepOf: SweepOf)
   // A station's call that does not reach a set assigned to it needs a new connection to that set's buzzer, and the
   // only change that adds one is a move of that set's buzzer lead with the station's cross-connect entry: one of
   // those moves is in every cure. (Other failures have no such bound: a lift elsewhere may restore them.)
-  for (const failure of plan.required.intercomPerStation ? baseFailures() : []) {
-    if (failure.function !== 'intercomPerStation' || failure.kind !== 'missing') continue;
-    // one cover per set the call misses: each needs a move of its own buzzer
-    for (const set of failure.sets)
-      if (!coverOf(ps, plan, { failure: { ...failure, sets: [set] } }, ports).length)
-        return noCure(
-          before,
-          baseFailures(),
-          { failure, reason: 'no spare pair on its station port can take its buzzer lead' },
-          first.complete,
-        );
-  }
+  for (const failure of plan.required.intercomPerStation ? missedBuzzers(baseFailures()) : [])
+    if (!coverOf(ps, plan, { failure }, ports).length)
+      return noCure(
+        before,
+        baseFailures(),
+        { failure, reason: 'no spare pair on its station port can take its buzzer lead' },
+        first.complete,
+      );
   const forbidden = partsOf(plan, untouched);
   const allowedWith = (blocked: Set<string>) => (c: Candidate) => !blocked.has(c.part);
   const allowed = allowedWith(forbidden);

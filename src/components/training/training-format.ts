@@ -12,16 +12,19 @@ const OWED: ReadonlySet<AssignmentStatus> = new Set(['not-started', 'working']);
  */
 export function dueText(dueAt: string | null, status?: AssignmentStatus, now = Date.now()): string {
   if (!dueAt) return 'No due date';
-  const due = new Date(dueAt);
-  const when = momentText(due);
-  return status && OWED.has(status) && due.getTime() < now ? `Overdue: was due ${when}` : `Due ${when}`;
+  const when = momentText(dueAt);
+  return isOverdue(dueAt, status, now) ? `Overdue: was due ${when}` : `Due ${when}`;
+}
+
+/** Past its due date while the trainee still owes the work (never without a trainee's status). */
+function isOverdue(dueAt: string, status: AssignmentStatus | undefined, now: number): boolean {
+  return !!status && OWED.has(status) && Date.parse(dueAt) < now;
 }
 
 /** The due date in a column headed "Due": the day and time, marked while the work is owed past it. */
 export function dueCell(dueAt: string | null, status?: AssignmentStatus, now = Date.now()): string {
   if (!dueAt) return '—';
-  const due = new Date(dueAt);
-  return status && OWED.has(status) && due.getTime() < now ? `${momentText(due)} (overdue)` : momentText(due);
+  return isOverdue(dueAt, status, now) ? `${momentText(dueAt)} (overdue)` : momentText(dueAt);
 }
 
 /** Assignments soonest due first, those without a due date last; equal dates keep the order they were set in. */
